@@ -1,0 +1,82 @@
+import { createDatabase, type Database } from '../database';
+import { hashPassword } from '../../server/core/password-hashing';
+import { DEMO_PLAYER, DEMO_ROSTER, DEMO_STAFF, DEMO_TEAM_NAME } from './demo-roster';
+
+/**
+ * Seeds the invented demo program when the database has no team yet (`npm run seed`). Demo accounts
+ * exist only here: production databases are never seeded. Password: DEMO_PASSWORD or trenchwork-demo.
+ */
+export async function seedDemo(db: Database, password: string): Promise<boolean> {
+  const existing = await db.selectFrom('teams').select('id').limit(1).executeTakeFirst();
+  if (existing) return false;
+  const passwordHash = await hashPassword(password);
+  await db.transaction().execute(async (trx) => {
+    const team = await trx.insertInto('teams').values({ name: DEMO_TEAM_NAME }).returning('id').executeTakeFirstOrThrow();
+    await trx
+      .insertInto('seasons')
+      .values({ team_id: team.id, name: '2025', starts_on: '2025-08-01', ends_on: '2025-12-15', is_current: false })
+      .execute();
+    const season = await trx
+      .insertInto('seasons')
+      .values({ team_id: team.id, name: '2026', starts_on: '2026-08-01', ends_on: '2026-12-15', is_current: true })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const playerIdByJersey = new Map<number, number>();
+    for (const entry of DEMO_ROSTER) {
+      const player = await trx.insertInto('players').values({ team_id: team.id, name: entry.name }).returning('id').executeTakeFirstOrThrow();
+      playerIdByJersey.set(entry.jersey, player.id);
+      await trx
+        .insertInto('roster_entries')
+        .values({
+          season_id: season.id,
+          player_id: player.id,
+          jersey: entry.jersey,
+          positions: entry.positions,
+          class_year: entry.classYear,
+          redshirt: entry.redshirt ?? false,
+          height_in: entry.heightIn,
+          weight_lb: entry.weightLb,
+          status: entry.status ?? 'active',
+        })
+        .execute();
+    }
+    const accounts = [
+      ...DEMO_STAFF.map((s) => ({ ...s, playerId: null as number | null })),
+      {
+        email: DEMO_PLAYER.email,
+        name: DEMO_ROSTER.find((r) => r.jersey === DEMO_PLAYER.jersey)!.name,
+        role: 'player',
+        playerId: playerIdByJersey.get(DEMO_PLAYER.jersey)!,
+      },
+    ];
+    for (const account of accounts) {
+      const user = await trx
+        .insertInto('users')
+        .values({ email: account.email, name: account.name, password_hash: passwordHash, password_changed_at: new Date() })
+        .returning('id')
+        .executeTakeFirstOrThrow();
+      await trx.insertInto('memberships').values({ user_id: user.id, team_id: team.id, role: account.role, player_id: account.playerId }).execute();
+    }
+  });
+  return true;
+}
+
+async function main(): Promise<void> {
+  const url = process.env.DATABASE_URL;
+  if (!url) throw new Error('DATABASE_URL is not set.');
+  if (process.env.NODE_ENV === 'production') throw new Error('The demo seed never runs in production.');
+  const handle = createDatabase(url, { max: 1 });
+  try {
+    const seeded = await seedDemo(handle.db, process.env.DEMO_PASSWORD || 'trenchwork-demo');
+    console.log(seeded ? `Seeded the demo program "${DEMO_TEAM_NAME}".` : 'Demo data already present; left as it is.');
+  } finally {
+    await handle.close();
+  }
+}
+
+if (require.main === module) {
+  main().catch((error: unknown) => {
+    console.error(error instanceof Error ? error.message : error);
+    process.exit(1);
+  });
+}

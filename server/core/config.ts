@@ -1,0 +1,128 @@
+import { z } from 'zod';
+
+/**
+ * The one typed configuration of the server and worker, read from the environment once at start.
+ * Defaults suit `npm start` on one machine; production sets at least DATABASE_URL, SESSION_SECRET,
+ * PUBLIC_URL, S3_* and SMTP_URL (see README "Configuration").
+ */
+const booleanFromEnv = z
+  .enum(['true', 'false', '1', '0', 'yes', 'no'])
+  .transform((v) => v === 'true' || v === '1' || v === 'yes');
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+  HOST: z.string().default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  PUBLIC_URL: z.url().optional(),
+  DATABASE_URL: z.string().min(1).default('postgres://postgres@127.0.0.1:54320/trenchwork'),
+  DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(200).default(10),
+  SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters.').optional(),
+  SESSION_IDLE_MINUTES: z.coerce.number().int().min(5).max(24 * 60).default(180),
+  SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).max(72).default(14),
+  TRUST_PROXY: booleanFromEnv.default(false),
+  STATIC_DIR: z.string().default('dist/trenchwork/browser'),
+  S3_ENDPOINT: z.string().optional(),
+  S3_REGION: z.string().default('us-east-1'),
+  S3_BUCKET: z.string().default('trenchwork-media'),
+  S3_ACCESS_KEY_ID: z.string().default('S3RVER'),
+  S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
+  S3_FORCE_PATH_STYLE: booleanFromEnv.default(true),
+  SMTP_URL: z.string().default('smtp://127.0.0.1:54325'),
+  MAIL_FROM: z.string().default('Trenchwork <no-reply@trenchwork.test>'),
+  DEV_MAILBOX_URL: z.string().optional(),
+  FFMPEG_PATH: z.string().default('/usr/bin/ffmpeg'),
+  FFPROBE_PATH: z.string().default('/usr/bin/ffprobe'),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  LOGIN_MAX_FAILURES_PER_ACCOUNT: z.coerce.number().int().min(1).default(10),
+  LOGIN_MAX_FAILURES_PER_IP: z.coerce.number().int().min(1).default(50),
+  LOGIN_THROTTLE_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  INVITATION_TTL_HOURS: z.coerce.number().int().min(1).default(72),
+  PASSWORD_RESET_TTL_MINUTES: z.coerce.number().int().min(5).default(30),
+  WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(32).default(2),
+});
+
+export interface Config {
+  readonly env: 'development' | 'test' | 'production';
+  readonly host: string;
+  readonly port: number;
+  readonly publicUrl: string;
+  readonly secureCookies: boolean;
+  readonly trustProxy: boolean;
+  readonly databaseUrl: string;
+  readonly databasePoolMax: number;
+  readonly sessionSecret: string;
+  readonly sessionIdleMs: number;
+  readonly sessionAbsoluteMs: number;
+  readonly staticDir: string;
+  readonly s3: {
+    readonly endpoint: string | undefined;
+    readonly region: string;
+    readonly bucket: string;
+    readonly accessKeyId: string;
+    readonly secretAccessKey: string;
+    readonly forcePathStyle: boolean;
+  };
+  readonly smtpUrl: string;
+  readonly mailFrom: string;
+  readonly devMailboxUrl: string | undefined;
+  readonly ffmpegPath: string;
+  readonly ffprobePath: string;
+  readonly logLevel: string;
+  readonly loginThrottle: { readonly perAccount: number; readonly perIp: number; readonly windowSeconds: number };
+  readonly invitationTtlMs: number;
+  readonly passwordResetTtlMs: number;
+  readonly workerConcurrency: number;
+}
+
+// Used only outside production when no secret is configured: sessions then do not survive
+// a restart of a process that did not share it, which is fine for tests and never allowed in production.
+const DEVELOPMENT_ONLY_SECRET = 'development-only-secret-not-for-production-use-0123456789';
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const e = parsed.data;
+  if (e.NODE_ENV === 'production' && !e.SESSION_SECRET) {
+    throw new Error('Invalid configuration:\n  SESSION_SECRET: required in production (at least 32 characters).');
+  }
+  const publicUrl = (e.PUBLIC_URL ?? `http://${e.HOST}:${e.PORT}`).replace(/\/$/, '');
+  return Object.freeze({
+    env: e.NODE_ENV,
+    host: e.HOST,
+    port: e.PORT,
+    publicUrl,
+    secureCookies: publicUrl.startsWith('https://'),
+    trustProxy: e.TRUST_PROXY,
+    databaseUrl: e.DATABASE_URL,
+    databasePoolMax: e.DATABASE_POOL_MAX,
+    sessionSecret: e.SESSION_SECRET ?? DEVELOPMENT_ONLY_SECRET,
+    sessionIdleMs: e.SESSION_IDLE_MINUTES * 60_000,
+    sessionAbsoluteMs: e.SESSION_ABSOLUTE_HOURS * 3_600_000,
+    staticDir: e.STATIC_DIR,
+    s3: Object.freeze({
+      endpoint: e.S3_ENDPOINT,
+      region: e.S3_REGION,
+      bucket: e.S3_BUCKET,
+      accessKeyId: e.S3_ACCESS_KEY_ID,
+      secretAccessKey: e.S3_SECRET_ACCESS_KEY,
+      forcePathStyle: e.S3_FORCE_PATH_STYLE,
+    }),
+    smtpUrl: e.SMTP_URL,
+    mailFrom: e.MAIL_FROM,
+    devMailboxUrl: e.NODE_ENV === 'production' ? undefined : e.DEV_MAILBOX_URL,
+    ffmpegPath: e.FFMPEG_PATH,
+    ffprobePath: e.FFPROBE_PATH,
+    logLevel: e.LOG_LEVEL,
+    loginThrottle: Object.freeze({
+      perAccount: e.LOGIN_MAX_FAILURES_PER_ACCOUNT,
+      perIp: e.LOGIN_MAX_FAILURES_PER_IP,
+      windowSeconds: e.LOGIN_THROTTLE_WINDOW_MINUTES * 60,
+    }),
+    invitationTtlMs: e.INVITATION_TTL_HOURS * 3_600_000,
+    passwordResetTtlMs: e.PASSWORD_RESET_TTL_MINUTES * 60_000,
+    workerConcurrency: e.WORKER_CONCURRENCY,
+  });
+}

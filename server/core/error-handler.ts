@@ -1,0 +1,52 @@
+import { randomUUID } from 'node:crypto';
+import type { NextFunction, Request, Response } from 'express';
+import { ZodError } from 'zod';
+import { AppError } from './errors';
+import type { Logger } from './logger';
+import { isDatabaseUnavailable } from './pg-errors';
+import { fieldErrors } from './validation';
+
+interface HttpLikeError {
+  status?: number;
+  statusCode?: number;
+  type?: string;
+  expose?: boolean;
+}
+
+/**
+ * The one error middleware: every failure becomes {"error":{"code","message","fields"?,"requestId"}}.
+ * No stack trace or SQL reaches the client; unexpected errors are logged with the request id.
+ */
+export function errorHandler(logger: Logger) {
+  return (error: unknown, req: Request, res: Response, _next: NextFunction): void => {
+    const requestId = (req as { id?: string }).id ?? randomUUID();
+    const send = (status: number, code: string, message: string, extra: Record<string, unknown> = {}) => {
+      if (res.headersSent) {
+        res.destroy();
+        return;
+      }
+      res.status(status).set('Cache-Control', 'no-store').json({ error: { code, message, ...extra, requestId } });
+    };
+    if (error instanceof AppError) {
+      send(error.status, error.code, error.message, { ...(error.fields ? { fields: error.fields } : {}), ...(error.extra ?? {}) });
+      return;
+    }
+    if (error instanceof ZodError) {
+      send(422, 'validation_failed', 'Some fields need attention.', { fields: fieldErrors(error) });
+      return;
+    }
+    const http = error as HttpLikeError;
+    if (http?.type === 'entity.parse.failed') return send(400, 'bad_request', 'The request body is not valid JSON.');
+    if (http?.type === 'entity.too.large') return send(413, 'payload_too_large', 'The request body is too large.');
+    if (http?.type === 'encoding.unsupported' || http?.type === 'charset.unsupported') return send(415, 'unsupported_media', 'Unsupported request encoding.');
+    const status = http?.status ?? http?.statusCode;
+    if (status && status >= 400 && status < 500 && http.expose !== false) return send(status, 'bad_request', 'The request could not be understood.');
+    if (isDatabaseUnavailable(error)) {
+      logger.error({ event: 'database_unavailable', requestId, err: error }, 'database unavailable');
+      res.set('Retry-After', '5');
+      return send(503, 'service_unavailable', 'The service is briefly unavailable. Your work is safe; try again in a moment.');
+    }
+    logger.error({ requestId, err: error, method: req.method, path: req.path }, 'unexpected error');
+    send(500, 'internal', 'Something went wrong on our side. It has been logged.');
+  };
+}

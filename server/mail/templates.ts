@@ -1,0 +1,48 @@
+import { ROLE_LABELS, type Role } from '@shared/roles';
+import type { MailMessage } from '../core/jobs';
+
+/** Escapes text for the HTML part of a mail. */
+function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+}
+
+function layout(paragraphs: string[], link: { href: string; label: string }): string {
+  const body = paragraphs.map((p) => `<p style="margin:0 0 12px">${escapeHtml(p)}</p>`).join('');
+  return `<!doctype html><html><body style="font-family:'Open Sans',Arial,sans-serif;color:#1F2A36;background:#F5F3EE;padding:24px">
+<div style="max-width:560px;margin:auto;background:#fff;border-radius:8px;padding:24px">
+<p style="font-weight:700;font-size:18px;margin:0 0 16px">Trenchwork</p>${body}
+<p><a href="${escapeHtml(link.href)}" style="background:#2E6B4F;color:#fff;padding:10px 16px;border-radius:6px;text-decoration:none">${escapeHtml(link.label)}</a></p>
+<p style="font-size:12px;color:#55606b">If the button does not work, copy this address into your browser: ${escapeHtml(link.href)}</p>
+</div></body></html>`;
+}
+
+export function invitationMail(args: { to: string; teamName: string; inviterName: string; role: Role; link: string; expiresAt: Date }): MailMessage {
+  const role = ROLE_LABELS[args.role].toLowerCase();
+  const until = args.expiresAt.toUTCString();
+  const lines = [
+    `${args.inviterName} invited you to join ${args.teamName} on Trenchwork as ${role}.`,
+    `Open the link below to set your name and password. The link works once and expires ${until}.`,
+  ];
+  return {
+    to: args.to,
+    subject: `You're invited to ${args.teamName} on Trenchwork`,
+    text: `${lines.join('\n\n')}\n\n${args.link}\n\nIf you did not expect this, you can ignore this mail.\n`,
+    html: layout([...lines, 'If you did not expect this, you can ignore this mail.'], { href: args.link, label: 'Accept the invitation' }),
+    purpose: 'invitation',
+  };
+}
+
+export function passwordResetMail(args: { to: string; name: string; link: string; ttlMinutes: number }): MailMessage {
+  const lines = [
+    `Hi ${args.name},`,
+    `Someone asked to reset the password of your Trenchwork account. Open the link below within ${args.ttlMinutes} minutes to choose a new one. The link works once.`,
+    'If it was not you, ignore this mail: your password stays as it is.',
+  ];
+  return {
+    to: args.to,
+    subject: 'Reset your Trenchwork password',
+    text: `${lines.join('\n\n')}\n\n${args.link}\n`,
+    html: layout(lines, { href: args.link, label: 'Choose a new password' }),
+    purpose: 'password_reset',
+  };
+}

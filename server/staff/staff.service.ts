@@ -1,0 +1,59 @@
+import type { Member, StaffResponse } from '@shared/api/team';
+import type { Role } from '@shared/roles';
+import type { AppContext } from '../core/context';
+import { conflict, notFound } from '../core/errors';
+import { deleteSessionsOfUser } from '../auth/users.repository';
+import { listInvitations } from './invitations.service';
+import { countActiveAdmins, listMembers } from './staff.repository';
+
+function toMember(row: Awaited<ReturnType<typeof listMembers>>[number]): Member {
+  return { ...row, role: row.role as Role, joinedAt: row.joinedAt.toISOString() };
+}
+
+export async function describeStaff(app: AppContext, teamId: number): Promise<StaffResponse> {
+  const [members, invitations] = await Promise.all([listMembers(app.db, teamId), listInvitations(app, teamId)]);
+  return { members: members.map(toMember), invitations };
+}
+
+/**
+ * Changes a member's role or deactivates them. A team always keeps at least one active admin.
+ * Deactivation keeps the membership row (history stays), and ends the account's sessions when it has
+ * no other active team.
+ */
+export async function updateMember(app: AppContext, teamId: number, membershipId: number, change: { role?: Role; active?: boolean }): Promise<Member> {
+  const updated = await app.db.transaction().execute(async (trx) => {
+    const current = await trx
+      .selectFrom('memberships')
+      .select(['id', 'user_id', 'role', 'active'])
+      .where('id', '=', membershipId)
+      .where('team_id', '=', teamId)
+      .forUpdate()
+      .executeTakeFirst();
+    if (!current) throw notFound('That member');
+    const losesAdmin = current.role === 'admin' && current.active && ((change.role && change.role !== 'admin') || change.active === false);
+    if (losesAdmin) {
+      // Lock the team's admin rows so two concurrent demotions cannot both pass the check.
+      await trx.selectFrom('memberships').select('id').where('team_id', '=', teamId).where('role', '=', 'admin').forUpdate().execute();
+      const { count } = await countActiveAdmins(trx, teamId);
+      if (Number(count) <= 1) throw conflict('A team needs at least one active admin. Make someone else admin first.');
+    }
+    await trx
+      .updateTable('memberships')
+      .set({ ...(change.role ? { role: change.role } : {}), ...(change.active !== undefined ? { active: change.active } : {}) })
+      .where('id', '=', membershipId)
+      .execute();
+    if (change.active === false) {
+      const others = await trx
+        .selectFrom('memberships')
+        .select('id')
+        .where('user_id', '=', current.user_id)
+        .where('active', '=', true)
+        .executeTakeFirst();
+      if (!others) await deleteSessionsOfUser(trx, current.user_id);
+    }
+    return current.user_id;
+  });
+  const member = (await listMembers(app.db, teamId)).find((m) => m.membershipId === membershipId && m.userId === updated);
+  if (!member) throw notFound('That member');
+  return toMember(member);
+}

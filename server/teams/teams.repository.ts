@@ -1,0 +1,22 @@
+import type { Database } from '../../db/database';
+
+export function findTeam(db: Database, teamId: number) {
+  return db.selectFrom('teams').select(['id', 'name']).where('id', '=', teamId).executeTakeFirst();
+}
+
+export function listSeasons(db: Database, teamId: number) {
+  return db
+    .selectFrom('seasons')
+    .select(['id', 'name', 'starts_on', 'ends_on', 'is_current'])
+    .where('team_id', '=', teamId)
+    .orderBy('starts_on', 'desc')
+    .execute();
+}
+
+export function findSeason(db: Database, teamId: number, seasonId: number) {
+  return db.selectFrom('seasons').select(['id', 'name']).where('team_id', '=', teamId).where('id', '=', seasonId).executeTakeFirst();
+}
+
+export function findCurrentSeason(db: Database, teamId: number) {
+  return db.selectFrom('seasons').select(['id', 'name']).where('team_id', '=', teamId).where('is_current', '=', true).executeTakeFirst();
+}

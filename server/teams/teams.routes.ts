@@ -1,0 +1,33 @@
+import { teamParams } from '@shared/api/common';
+import { seasonCreateSchema, seasonSchema, teamSchema } from '@shared/api/team';
+import { ROLES } from '@shared/roles';
+import { defineRoute, teamFromPath, type RouteDefinition } from '../core/route';
+import { createSeason, describeTeam } from './teams.service';
+
+export function teamRoutes(): RouteDefinition[] {
+  return [
+    defineRoute({
+      operationId: 'getTeam',
+      method: 'get',
+      path: '/teams/{teamId}',
+      summary: 'The team with its seasons.',
+      tags: ['teams'],
+      access: { kind: 'team', roles: ROLES, team: teamFromPath },
+      params: teamParams,
+      responses: { 200: { description: 'The team', schema: teamSchema } },
+      handler: async ({ app, params }) => describeTeam(app, params.teamId),
+    }),
+    defineRoute({
+      operationId: 'createSeason',
+      method: 'post',
+      path: '/teams/{teamId}/seasons',
+      summary: 'Add a season (the first one, or one marked so, becomes current).',
+      tags: ['teams'],
+      access: { kind: 'team', roles: ['admin'], team: teamFromPath },
+      params: teamParams,
+      body: seasonCreateSchema,
+      responses: { 201: { description: 'The season', schema: seasonSchema }, 409: { description: 'Name already used' } },
+      handler: async ({ app, params, body }) => createSeason(app, params.teamId, body),
+    }),
+  ];
+}

@@ -1,0 +1,46 @@
+import type { Season, Team } from '@shared/api/team';
+import type { AppContext } from '../core/context';
+import { conflict, notFound } from '../core/errors';
+import { isUniqueViolation } from '../core/pg-errors';
+import { findCurrentSeason, findSeason, findTeam, listSeasons } from './teams.repository';
+
+function toSeason(row: Awaited<ReturnType<typeof listSeasons>>[number]): Season {
+  return { id: row.id, name: row.name, startsOn: row.starts_on, endsOn: row.ends_on, isCurrent: row.is_current };
+}
+
+export async function describeTeam(app: AppContext, teamId: number): Promise<Team> {
+  const team = await findTeam(app.db, teamId);
+  if (!team) throw notFound('That team');
+  const seasons = (await listSeasons(app.db, teamId)).map(toSeason);
+  return { id: team.id, name: team.name, seasons, currentSeasonId: seasons.find((s) => s.isCurrent)?.id ?? null };
+}
+
+/** The season a request is about: the one asked for (it must be this team's) or the current one. */
+export async function resolveSeason(app: AppContext, teamId: number, seasonId?: number): Promise<{ id: number; name: string }> {
+  const season = seasonId === undefined ? await findCurrentSeason(app.db, teamId) : await findSeason(app.db, teamId, seasonId);
+  if (!season) throw notFound(seasonId === undefined ? "This team's current season" : 'That season');
+  return season;
+}
+
+export async function createSeason(
+  app: AppContext,
+  teamId: number,
+  input: { name: string; startsOn: string; endsOn: string; makeCurrent: boolean },
+): Promise<Season> {
+  try {
+    const row = await app.db.transaction().execute(async (trx) => {
+      const hasCurrent = await trx.selectFrom('seasons').select('id').where('team_id', '=', teamId).where('is_current', '=', true).executeTakeFirst();
+      const makeCurrent = input.makeCurrent || !hasCurrent;
+      if (makeCurrent) await trx.updateTable('seasons').set({ is_current: false }).where('team_id', '=', teamId).execute();
+      return trx
+        .insertInto('seasons')
+        .values({ team_id: teamId, name: input.name, starts_on: input.startsOn, ends_on: input.endsOn, is_current: makeCurrent })
+        .returning(['id', 'name', 'starts_on', 'ends_on', 'is_current'])
+        .executeTakeFirstOrThrow();
+    });
+    return toSeason(row);
+  } catch (error) {
+    if (isUniqueViolation(error)) throw conflict('A season with that name exists.', { name: 'Already used.' });
+    throw error;
+  }
+}

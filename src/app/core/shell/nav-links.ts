@@ -1,0 +1,25 @@
+import { STAFF_ROLES, type Role } from '@shared/roles';
+
+export interface NavLink {
+  path: string;
+  label: string;
+  icon: string;
+}
+
+const LINKS: { link: NavLink; roles: readonly Role[] }[] = [
+  { link: { path: '/', label: 'This Week', icon: 'today' }, roles: ['admin', 'coordinator', 'coach', 'analyst', 'player'] },
+  { link: { path: '/roster', label: 'Roster', icon: 'groups' }, roles: STAFF_ROLES },
+  { link: { path: '/staff', label: 'Staff', icon: 'badge' }, roles: ['admin'] },
+];
+
+/** The side navigation for a role in the selected team. Route guards enforce the same rule. */
+export function navLinksFor(role: Role | null): NavLink[] {
+  if (role === null) return [];
+  return LINKS.filter((entry) => entry.roles.includes(role)).map((entry) => entry.link);
+}
+
+/** Whether `url` stays reachable after switching to a team where the user holds `role`. */
+export function urlAllowedFor(role: Role | null, url: string): boolean {
+  const path = url.split(/[?#]/)[0];
+  return navLinksFor(role).some((link) => (link.path === '/' ? path === '/' : path === link.path || path.startsWith(`${link.path}/`)));
+}

@@ -1,0 +1,7 @@
+import type { JobHandler } from './handlers';
+
+/** Sends one mail. SMTP gives no idempotency key: at-least-once delivery may, rarely, send twice. */
+export const sendMail: JobHandler<'mail.send'> = async (deps, data, jobId) => {
+  const messageId = await deps.mailer.send(data);
+  deps.logger.info({ event: 'mail_sent', jobId, purpose: data.purpose, messageId }, 'mail sent');
+};
