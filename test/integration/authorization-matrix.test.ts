@@ -1,0 +1,135 @@
+import { ROLES, type Role } from '@shared/roles';
+import { ApiClient } from '../support/api-client';
+import { createTeamFixture, TEST_PASSWORD, type TeamFixture } from '../support/fixtures';
+import { startTestApp, type TestApp } from '../support/test-app';
+
+/**
+ * Every route in the OpenAPI document × every role, anonymous, and an admin of another team.
+ * The expected access is written out here, independently of the routes' own declarations, and the
+ * test fails when a route exists without an entry (or an entry without a route).
+ */
+type Caller = 'anonymous' | Role | 'otherTeamAdmin';
+const CALLERS: Caller[] = ['anonymous', ...ROLES, 'otherTeamAdmin'];
+type Rule = 'public' | 'signedIn' | readonly Role[];
+
+const STAFF: readonly Role[] = ['admin', 'coordinator', 'coach', 'analyst'];
+const EDITORS: readonly Role[] = ['admin', 'coordinator'];
+const ADMIN: readonly Role[] = ['admin'];
+
+const EXPECTED: Record<string, Rule> = {
+  health: 'public',
+  login: 'public',
+  logout: 'public',
+  me: 'signedIn',
+  requestPasswordReset: 'public',
+  confirmPasswordReset: 'public',
+  previewInvitation: 'public',
+  acceptInvitation: 'public',
+  devMail: 'public',
+  getTeam: ROLES,
+  createSeason: ADMIN,
+  listPlayers: STAFF,
+  exportRoster: STAFF,
+  addPlayer: EDITORS,
+  updatePlayer: EDITORS,
+  importRoster: EDITORS,
+  listStaff: ADMIN,
+  createInvitation: ADMIN,
+  resendInvitation: ADMIN,
+  revokeInvitation: ADMIN,
+  updateMember: ADMIN,
+};
+
+function expectedStatus(rule: Rule, caller: Caller): 'allowed' | 401 | 403 {
+  if (rule === 'public') return 'allowed';
+  if (caller === 'anonymous') return 401;
+  if (rule === 'signedIn') return 'allowed';
+  if (caller === 'otherTeamAdmin') return 403;
+  return rule.includes(caller) ? 'allowed' : 403;
+}
+
+interface Operation {
+  operationId: string;
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
+  path: string;
+}
+
+let t: TestApp;
+let team: TeamFixture;
+let other: TeamFixture;
+const clients = new Map<Caller, ApiClient>();
+let operations: Operation[];
+let invitationId: number;
+let coachMembershipId: number;
+
+beforeAll(async () => {
+  t = await startTestApp();
+  team = await createTeamFixture(t.ctx.db, 'Matrix');
+  other = await createTeamFixture(t.ctx.db, 'Other');
+  const inviter = team.accounts.admin.userId;
+  const invitation = await t.ctx.db
+    .insertInto('invitations')
+    .values({ team_id: team.teamId, email: 'pending@matrix.test', role: 'coach', token_hash: 'x'.repeat(64), invited_by: inviter, expires_at: new Date(Date.now() + 3_600_000) })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  invitationId = invitation.id;
+  coachMembershipId = (await t.ctx.db.selectFrom('memberships').select('id').where('user_id', '=', team.accounts.coach.userId).executeTakeFirstOrThrow()).id;
+  for (const caller of CALLERS) {
+    const client = t.client();
+    if (caller !== 'anonymous') {
+      const email = caller === 'otherTeamAdmin' ? other.accounts.admin.email : team.accounts[caller].email;
+      const res = await client.login(email, TEST_PASSWORD);
+      expect(res.status).toBe(200);
+    }
+    clients.set(caller, client);
+  }
+  const doc = (await t.client().get('/api/openapi.json')).body as { paths: Record<string, Record<string, { operationId: string }>> };
+  operations = Object.entries(doc.paths).flatMap(([path, methods]) =>
+    Object.entries(methods).map(([method, op]) => ({ operationId: op.operationId, method: method as Operation['method'], path })),
+  );
+  // Sign-out ends the caller's session: run it last.
+  operations.sort((a, b) => Number(a.operationId === 'logout') - Number(b.operationId === 'logout'));
+});
+
+afterAll(async () => {
+  await t?.close();
+});
+
+function concretePath(path: string): string {
+  const values: Record<string, string> = {
+    teamId: String(team.teamId),
+    playerId: String(team.playerIds[0]),
+    invitationId: String(invitationId),
+    membershipId: String(coachMembershipId),
+    token: 'not-a-real-token-0123456789',
+  };
+  return path.replace(/\{(\w+)\}/g, (_m, name: string) => {
+    if (!(name in values)) throw new Error(`No test value for path parameter ${name}`);
+    return values[name]!;
+  });
+}
+
+test('every documented route has an expected-access entry, and every entry a route', () => {
+  const documented = operations.map((o) => o.operationId).sort();
+  expect(documented).toEqual(Object.keys(EXPECTED).sort());
+});
+
+test('every route answers each caller as expected (0 unexpected successes)', async () => {
+  const failures: string[] = [];
+  let checked = 0;
+  for (const op of operations) {
+    for (const caller of CALLERS) {
+      const client = clients.get(caller)!;
+      const url = concretePath(op.path);
+      // Empty bodies: an allowed caller gets a validation error, never a change of state.
+      const res = op.method === 'get' ? await client.get(url) : await client.send(op.method, url, op.operationId === 'logout' ? undefined : {});
+      const expected = expectedStatus(EXPECTED[op.operationId]!, caller);
+      checked += 1;
+      const ok = expected === 'allowed' ? res.status !== 401 && res.status !== 403 && res.status < 500 : res.status === expected;
+      if (!ok) failures.push(`${op.method.toUpperCase()} ${op.path} as ${caller}: got ${res.status}, expected ${expected}`);
+      if (res.status >= 400) expect(res.body.error?.code).toEqual(expect.any(String));
+    }
+  }
+  expect(failures).toEqual([]);
+  expect(checked).toBe(operations.length * CALLERS.length);
+});

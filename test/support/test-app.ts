@@ -1,0 +1,66 @@
+import type { Express } from 'express';
+import { createApp } from '../../server/app';
+import { loadConfig, type Config } from '../../server/core/config';
+import type { AppContext } from '../../server/core/context';
+import { createLogger } from '../../server/core/logger';
+import { createJobQueue, type JobQueue } from '../../server/core/queue';
+import { createMailer } from '../../workers/mailer';
+import { startWorking } from '../../workers/worker';
+import { ApiClient } from './api-client';
+import { createTestDatabase, type TestDatabase } from './test-database';
+
+export interface TestApp {
+  app: Express;
+  ctx: AppContext;
+  config: Config;
+  database: TestDatabase;
+  jobs: JobQueue;
+  /** Moves the app's clock (token expiry, session timeouts). */
+  clock: { offsetMs: number };
+  client(): ApiClient;
+  /** Runs the background worker in this process (mail goes to the SMTP fake). */
+  startWorker(): Promise<void>;
+  close(): Promise<void>;
+}
+
+/** The real API on its own cloned database, with the real queue; mail goes to the SMTP fake. */
+export async function startTestApp(env: Record<string, string> = {}): Promise<TestApp> {
+  const database = await createTestDatabase();
+  const config = loadConfig({
+    ...process.env,
+    NODE_ENV: 'test',
+    LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'silent',
+    DATABASE_URL: database.url,
+    STATIC_DIR: env.STATIC_DIR ?? '/nonexistent',
+    ...env,
+  });
+  const logger = createLogger(config.logLevel);
+  const jobs = createJobQueue(database.url, { max: 3 });
+  await jobs.start();
+  const clock = { offsetMs: 0 };
+  const ctx: AppContext = { config, db: database.handle.db, logger, jobs, now: () => new Date(Date.now() + clock.offsetMs) };
+  const app = createApp(ctx, database.handle.pool);
+  let workerQueue: JobQueue | undefined;
+  let mailer: ReturnType<typeof createMailer> | undefined;
+  return {
+    app,
+    ctx,
+    config,
+    database,
+    jobs,
+    clock,
+    client: () => new ApiClient(app),
+    async startWorker() {
+      workerQueue = createJobQueue(database.url, { max: 3 });
+      await workerQueue.start();
+      mailer = createMailer(config);
+      await startWorking(workerQueue, { logger, mailer }, 1);
+    },
+    async close() {
+      await workerQueue?.stop();
+      mailer?.close();
+      await jobs.stop();
+      await database.drop();
+    },
+  };
+}
