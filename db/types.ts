@@ -95,7 +95,102 @@ export interface SessionTable {
   expire: Timestamp;
 }
 
+export interface TagListItemsTable {
+  id: Generated<number>;
+  team_id: number;
+  kind: string;
+  name: string;
+  active: Generated<boolean>;
+  sort_order: Generated<number>;
+}
+
+export interface FilmSessionsTable {
+  id: Generated<number>;
+  team_id: number;
+  season_id: number;
+  kind: string;
+  title: string;
+  date: DateString;
+  opponent: string | null;
+  home_away: string | null;
+  week: number | null;
+  periods: ColumnType<string[], string[] | undefined, string[]>;
+  created_by: number | null;
+  created_at: Timestamp;
+}
+
+export interface SnapsTable {
+  id: Generated<number>;
+  session_id: number;
+  order: number;
+  quarter: number | null;
+  down: number | null;
+  distance: number | null;
+  yard_line: number | null;
+  field_side: string | null;
+  hash: string | null;
+  personnel: string | null;
+  formation_id: number | null;
+  concept_id: number | null;
+  direction: string | null;
+  front_id: number | null;
+  result_yards: number | null;
+  outcome_id: number | null;
+  period: string | null;
+  notes: string | null;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+}
+
+/** Strip (scrub preview sprite) layout, stored as JSON on the clip. */
+export interface StripLayout {
+  frames: number;
+  intervalMs: number;
+  tileWidth: number;
+  tileHeight: number;
+}
+
+export interface ClipsTable {
+  id: Generated<number>;
+  team_id: number;
+  session_id: number;
+  snap_id: number | null;
+  kind: Generated<string>;
+  angle: Generated<string>;
+  upload_order: number;
+  original_name: string;
+  status: Generated<string>;
+  failure_reason: string | null;
+  progress: Generated<number>;
+  sha256: string | null;
+  size_bytes: number | null;
+  original_key: string | null;
+  poster_key: string | null;
+  strip_key: string | null;
+  strip: ColumnType<StripLayout | null, string | null, string | null>;
+  rendition_key: string | null;
+  duration_ms: number | null;
+  width: number | null;
+  height: number | null;
+  /** numeric(8,3) arrives as a string from pg. */
+  fps: ColumnType<string | null, number | string | null, number | string | null>;
+  video_codec: string | null;
+  audio_codec: string | null;
+  rotation: number | null;
+  source_clip_id: number | null;
+  source_start_ms: number | null;
+  source_end_ms: number | null;
+  proposed_cuts: ColumnType<number[] | null, string | null, string | null>;
+  created_by: number | null;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+}
+
 export interface DB {
+  tag_list_items: TagListItemsTable;
+  film_sessions: FilmSessionsTable;
+  snaps: SnapsTable;
+  clips: ClipsTable;
   users: UsersTable;
   teams: TeamsTable;
   seasons: SeasonsTable;

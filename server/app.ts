@@ -14,6 +14,7 @@ import { errorHandler } from './core/error-handler';
 import { notFound } from './core/errors';
 import { buildOpenApiDocument } from './core/openapi';
 import { buildRouter } from './core/register-routes';
+import { rejectNulCharacters } from './core/reject-nul';
 import { createSessionMiddleware, enforceAbsoluteTimeout, sessionCookieName } from './core/session';
 import { allRoutes } from './routes';
 
@@ -88,6 +89,7 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
 
   const api = express.Router();
   api.use(express.json({ limit: '2mb' }));
+  api.use(rejectNulCharacters);
   api.use((_req, res, next) => {
     res.set('Cache-Control', 'no-store');
     next();

@@ -3,7 +3,9 @@ import { createDatabase } from '../db/database';
 import { loadConfig } from './core/config';
 import type { AppContext } from './core/context';
 import { createLogger } from './core/logger';
+import { jobPolicies } from './core/jobs';
 import { createJobQueue } from './core/queue';
+import { createObjectStorage } from './core/storage';
 import { createApp } from './app';
 
 // The API process: `npm run serve:api`. Stops gracefully on SIGTERM / SIGINT.
@@ -11,9 +13,11 @@ async function main(): Promise<void> {
   const config = loadConfig();
   const logger = createLogger(config.logLevel);
   const database = createDatabase(config.databaseUrl, { max: config.databasePoolMax });
-  const jobs = createJobQueue(config.databaseUrl);
+  const jobs = createJobQueue(config.databaseUrl, { policies: jobPolicies(config.media.timeoutMs) });
   await jobs.start();
-  const ctx: AppContext = { config, db: database.db, logger, jobs, now: () => new Date() };
+  const storage = createObjectStorage(config);
+  await storage.ensureBucket().catch((error: unknown) => logger.warn({ err: error }, 'object storage not reachable at start; uploads will fail until it is'));
+  const ctx: AppContext = { config, db: database.db, logger, jobs, storage, now: () => new Date() };
   const server = createServer(createApp(ctx, database.pool));
   server.keepAliveTimeout = 65_000;
   await new Promise<void>((resolve) => server.listen(config.port, config.host, resolve));

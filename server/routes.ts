@@ -1,5 +1,6 @@
 import { authRoutes } from './auth/auth.routes';
 import { devRoutes } from './dev/dev.routes';
+import { filmRoutes } from './film/film.routes';
 import { healthRoutes } from './health/health.routes';
 import { rosterRoutes } from './roster/roster.routes';
 import { staffRoutes } from './staff/staff.routes';
@@ -16,6 +17,7 @@ export function allRoutes(deps: AuthDeps & { version: string; startedAt: number 
     ...teamRoutes(),
     ...rosterRoutes(),
     ...staffRoutes(),
+    ...filmRoutes(),
     ...devRoutes(),
   ];
 }

@@ -22,7 +22,14 @@ export const ERROR_CODES = [
 export type ErrorCode = (typeof ERROR_CODES)[number];
 
 export interface ApiErrorBody {
-  error: { code: ErrorCode; message: string; fields?: Record<string, string>; requestId?: string };
+  error: {
+    code: ErrorCode;
+    message: string;
+    fields?: Record<string, string>;
+    /** Row-level problems of a file import: nothing was imported. */
+    rows?: { row: number; field: string; message: string }[];
+    requestId?: string;
+  };
 }
 
 export function isApiErrorBody(value: unknown): value is ApiErrorBody {

@@ -16,8 +16,10 @@ const COMMON_PASSWORDS = new Set([
 
 /** Returns a message describing why the password is not acceptable, or null when it is fine. */
 export function passwordProblem(password: string): string | null {
-  if (password.length < PASSWORD_MIN_LENGTH) return `Use at least ${PASSWORD_MIN_LENGTH} characters.`;
-  if (password.length > PASSWORD_MAX_LENGTH) return `Use at most ${PASSWORD_MAX_LENGTH} characters.`;
+  // Count characters (code points), not UTF-16 units: an emoji is one character.
+  const length = [...password].length;
+  if (length < PASSWORD_MIN_LENGTH) return `Use at least ${PASSWORD_MIN_LENGTH} characters.`;
+  if (length > PASSWORD_MAX_LENGTH) return `Use at most ${PASSWORD_MAX_LENGTH} characters.`;
   if (COMMON_PASSWORDS.has(password.toLowerCase())) return 'That password is too common; choose another.';
   return null;
 }

@@ -1,9 +1,7 @@
-import { CLASS_YEARS, POSITIONS, PLAYER_STATUSES, parseHeight, formatHeight } from './roster';
+import { CLASS_YEAR_LABELS, CLASS_YEARS, POSITIONS, PLAYER_STATUSES, ROSTER_CSV_COLUMNS, parseHeight, formatHeight, type RosterCsvColumn } from './roster';
 import { playerInputSchema, type PlayerInput, type Player, type RosterImportRowError } from './api/roster';
 
-/** Our roster file's columns, in order. The header row is required on import. */
-export const ROSTER_CSV_COLUMNS = ['name', 'jersey', 'positions', 'class', 'redshirt', 'height', 'weight', 'status'] as const;
-export type RosterCsvColumn = (typeof ROSTER_CSV_COLUMNS)[number];
+export { ROSTER_CSV_COLUMNS, type RosterCsvColumn };
 export type RosterCsvRecord = Partial<Record<RosterCsvColumn, string>>;
 
 const YES = new Set(['yes', 'y', 'true', '1', 'rs']);
@@ -90,9 +88,10 @@ export function validateRosterRecords(records: RosterCsvRecord[]): RosterCsvResu
   return { rows, errors };
 }
 
+/** Accepts the code (Jr) or the word (Junior, junior), as coaches type both. */
 function normaliseClass(text: string): string {
-  const t = text.trim().toLowerCase();
-  const match = CLASS_YEARS.find((c) => c.toLowerCase() === t || t.startsWith(c.toLowerCase()));
+  const t = text.trim().toLowerCase().replace(/\.$/, '');
+  const match = CLASS_YEARS.find((c) => c.toLowerCase() === t || CLASS_YEAR_LABELS[c].toLowerCase() === t);
   return match ?? text.trim();
 }
 

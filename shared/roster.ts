@@ -36,3 +36,7 @@ export function parseHeight(text: string): number | null {
   }
   return /^\d{2}$/.test(trimmed) ? Number(trimmed) : null;
 }
+
+/** Our roster file's columns, in order. The header row is required on import. */
+export const ROSTER_CSV_COLUMNS = ['name', 'jersey', 'positions', 'class', 'redshirt', 'height', 'weight', 'status'] as const;
+export type RosterCsvColumn = (typeof ROSTER_CSV_COLUMNS)[number];

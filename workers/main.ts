@@ -1,7 +1,11 @@
+import { createDatabase } from '../db/database';
 import { loadConfig } from '../server/core/config';
+import { jobPolicies } from '../server/core/jobs';
 import { createLogger } from '../server/core/logger';
 import { createJobQueue } from '../server/core/queue';
+import { createObjectStorage } from '../server/core/storage';
 import { createMailer } from './mailer';
+import { createMediaOps } from './media-toolkit';
 import { startWorking } from './worker';
 
 // The background worker process: `npm run serve:worker`. pg-boss gives at-least-once delivery with
@@ -9,10 +13,18 @@ import { startWorking } from './worker';
 async function main(): Promise<void> {
   const config = loadConfig();
   const logger = createLogger(config.logLevel).child({ process: 'worker' });
-  const queue = createJobQueue(config.databaseUrl, { supervise: true, max: config.workerConcurrency + 2 });
+  const queue = createJobQueue(config.databaseUrl, {
+    supervise: true,
+    max: config.workerConcurrency + 2,
+    policies: jobPolicies(config.media.timeoutMs),
+    maintenanceSeconds: config.jobMaintenanceSeconds,
+  });
   await queue.start();
+  const database = createDatabase(config.databaseUrl, { max: config.workerConcurrency + 2 });
+  const storage = createObjectStorage(config);
   const mailer = createMailer(config);
-  await startWorking(queue, { logger, mailer }, config.workerConcurrency);
+  const media = createMediaOps(config);
+  await startWorking(queue, { config, logger, db: database.db, storage, jobs: queue, mailer, media }, config.workerConcurrency);
   logger.info({ concurrency: config.workerConcurrency }, 'worker started');
 
   let stopping = false;
@@ -24,6 +36,8 @@ async function main(): Promise<void> {
     force.unref();
     await queue.stop().catch(() => undefined);
     mailer.close();
+    storage.destroy();
+    await database.close().catch(() => undefined);
     process.exit(0);
   };
   process.on('SIGTERM', () => void stop('SIGTERM'));

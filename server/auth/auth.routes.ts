@@ -60,7 +60,7 @@ export function authRoutes(deps: AuthDeps): RouteDefinition[] {
       },
       handler: async ({ app, req, res, body }) => {
         const ip = req.ip ?? 'unknown';
-        const waitMs = await deps.throttle.retryAfterMs(body.email, ip);
+        const waitMs = await deps.throttle.reserveAttempt(body.email, ip);
         if (waitMs > 0) {
           const minutes = Math.ceil(waitMs / 60_000);
           res.set('Retry-After', String(Math.ceil(waitMs / 1000)));
@@ -71,11 +71,10 @@ export function authRoutes(deps: AuthDeps): RouteDefinition[] {
         req.body = body;
         const user = await authenticate(deps.passport, req, res);
         if (!user) {
-          await deps.throttle.recordFailure(body.email, ip);
           app.logger.warn({ event: 'login_failed', ip }, 'sign-in failed');
           throw new AppError(401, 'invalid_credentials', 'That e-mail and password do not match an account.');
         }
-        await deps.throttle.recordSuccess(body.email);
+        await deps.throttle.recordSuccess(body.email, ip);
         await logIn(req, user);
         req.session.loginAt = app.now().getTime();
         req.session.csrfBinding = randomBytes(24).toString('base64url');

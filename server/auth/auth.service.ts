@@ -7,6 +7,7 @@ import { hashPassword, verifyAgainstDummy, verifyPassword } from '../core/passwo
 import type { SessionUser } from '../core/route';
 import { createLinkToken, hashLinkToken } from '../core/tokens';
 import { passwordResetMail } from '../mail/templates';
+import { enqueueMail } from '../mail/outbox';
 import { deleteSessionsOfUser, findActiveUserById, findUserByEmail, listMemberships, setPassword } from './users.repository';
 
 /** Checks an e-mail and password. Unknown and known accounts take about the same time. */
@@ -57,7 +58,7 @@ export async function requestPasswordReset(app: AppContext, email: string): Prom
       .values({ user_id: user.id, token_hash: hash, expires_at: new Date(app.now().getTime() + app.config.passwordResetTtlMs) })
       .execute();
     const link = `${app.config.publicUrl}/reset-password?token=${encodeURIComponent(token)}`;
-    await app.jobs.send('mail.send', passwordResetMail({ to: user.email, name: user.name, link, ttlMinutes }), trx);
+    await enqueueMail(app, passwordResetMail({ to: user.email, name: user.name, link, ttlMinutes }), trx);
   });
 }
 

@@ -8,10 +8,14 @@ import type { Config } from '../core/config';
  * (default 10 per account and 50 per address in 15 minutes).
  */
 export interface LoginThrottle {
-  /** Milliseconds until the caller may try again, or 0 when it may try now. */
-  retryAfterMs(email: string, ip: string): Promise<number>;
-  recordFailure(email: string, ip: string): Promise<void>;
-  recordSuccess(email: string): Promise<void>;
+  /**
+   * Reserves one attempt for this account and this address before the password is checked, so a
+   * burst of parallel guesses cannot get more checks than the limit. Answers the milliseconds until
+   * the caller may try again when no attempt is left, else 0.
+   */
+  reserveAttempt(email: string, ip: string): Promise<number>;
+  /** A right password: the account's count starts over and the address gets its attempt back. */
+  recordSuccess(email: string, ip: string): Promise<void>;
 }
 
 export function createLoginThrottle(config: Config, pool: pg.Pool): LoginThrottle {
@@ -19,33 +23,28 @@ export function createLoginThrottle(config: Config, pool: pg.Pool): LoginThrottl
   const perAccount = new RateLimiterPostgres({ ...common, keyPrefix: 'login_account', points: config.loginThrottle.perAccount });
   const perIp = new RateLimiterPostgres({ ...common, keyPrefix: 'login_ip', points: config.loginThrottle.perIp });
 
-  async function blockedFor(limiter: RateLimiterPostgres, key: string, points: number): Promise<number> {
-    const res = await limiter.get(key);
-    return res && res.consumedPoints >= points ? Math.max(res.msBeforeNext, 1000) : 0;
-  }
-
-  async function consume(limiter: RateLimiterPostgres, key: string): Promise<void> {
+  /** 0 when a point was taken; otherwise how long until one frees up. */
+  async function take(limiter: RateLimiterPostgres, key: string): Promise<number> {
     try {
       await limiter.consume(key);
+      return 0;
     } catch (error) {
-      // A rejection with RateLimiterRes only means the limit is now reached; anything else is real.
-      if (!(error instanceof RateLimiterRes)) throw error;
+      // A rejection with RateLimiterRes means no point is left; anything else is a real failure.
+      if (error instanceof RateLimiterRes) return Math.max(error.msBeforeNext, 1000);
+      throw error;
     }
   }
 
   return {
-    async retryAfterMs(email, ip) {
-      const [account, address] = await Promise.all([
-        blockedFor(perAccount, email, config.loginThrottle.perAccount),
-        blockedFor(perIp, ip, config.loginThrottle.perIp),
-      ]);
-      return Math.max(account, address);
+    async reserveAttempt(email, ip) {
+      const address = await take(perIp, ip);
+      if (address > 0) return address;
+      const account = await take(perAccount, email);
+      if (account > 0) await perIp.reward(ip, 1);
+      return account;
     },
-    async recordFailure(email, ip) {
-      await Promise.all([consume(perAccount, email), consume(perIp, ip)]);
-    },
-    async recordSuccess(email) {
-      await perAccount.delete(email);
+    async recordSuccess(email, ip) {
+      await Promise.all([perAccount.delete(email), perIp.reward(ip, 1)]);
     },
   };
 }

@@ -32,7 +32,7 @@ export async function authorize(
   const user = req.user as SessionUser | undefined;
   if (!user) throw unauthenticated();
   if (access.kind === 'signedIn') return null;
-  const teamId = await access.team(app, params);
+  const teamId = await access.team(app, params, req);
   if (teamId === null) throw notFound();
   const membership = await findMembership(app, user.id, teamId);
   if (!membership || !access.roles.includes(membership.role)) {

@@ -39,6 +39,12 @@ const envSchema = z.object({
   INVITATION_TTL_HOURS: z.coerce.number().int().min(1).default(72),
   PASSWORD_RESET_TTL_MINUTES: z.coerce.number().int().min(5).default(30),
   WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(32).default(2),
+  MAX_UPLOAD_BYTES: z.coerce.number().int().min(1024).default(4 * 1024 ** 3),
+  MAX_UPLOAD_FILES: z.coerce.number().int().min(1).max(1000).default(200),
+  MEDIA_TIMEOUT_SECONDS: z.coerce.number().int().min(1).max(7200).default(300),
+  RENDITION_MAX_HEIGHT: z.coerce.number().int().min(144).max(2160).default(720),
+  STRIP_FRAMES: z.coerce.number().int().min(2).max(200).default(40),
+  JOB_MAINTENANCE_SECONDS: z.coerce.number().int().min(1).max(3600).default(60),
 });
 
 export interface Config {
@@ -72,6 +78,15 @@ export interface Config {
   readonly invitationTtlMs: number;
   readonly passwordResetTtlMs: number;
   readonly workerConcurrency: number;
+  readonly media: {
+    readonly maxUploadBytes: number;
+    readonly maxUploadFiles: number;
+    readonly timeoutMs: number;
+    readonly renditionMaxHeight: number;
+    readonly stripFrames: number;
+  };
+  /** How often the queue looks for expired (crashed) jobs to hand out again. */
+  readonly jobMaintenanceSeconds: number;
 }
 
 // Used only outside production when no secret is configured: sessions then do not survive
@@ -124,5 +139,13 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     invitationTtlMs: e.INVITATION_TTL_HOURS * 3_600_000,
     passwordResetTtlMs: e.PASSWORD_RESET_TTL_MINUTES * 60_000,
     workerConcurrency: e.WORKER_CONCURRENCY,
+    media: Object.freeze({
+      maxUploadBytes: e.MAX_UPLOAD_BYTES,
+      maxUploadFiles: e.MAX_UPLOAD_FILES,
+      timeoutMs: e.MEDIA_TIMEOUT_SECONDS * 1000,
+      renditionMaxHeight: e.RENDITION_MAX_HEIGHT,
+      stripFrames: e.STRIP_FRAMES,
+    }),
+    jobMaintenanceSeconds: e.JOB_MAINTENANCE_SECONDS,
   });
 }

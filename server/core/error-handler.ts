@@ -41,6 +41,10 @@ export function errorHandler(logger: Logger) {
     if (http?.type === 'encoding.unsupported' || http?.type === 'charset.unsupported') return send(415, 'unsupported_media', 'Unsupported request encoding.');
     const status = http?.status ?? http?.statusCode;
     if (status && status >= 400 && status < 500 && http.expose !== false) return send(status, 'bad_request', 'The request could not be understood.');
+    const pgCode = (error as { code?: string })?.code;
+    if (pgCode === '22021' || pgCode === '22P05') {
+      return send(422, 'validation_failed', 'Some text contains a character that cannot be stored (for example a NUL character).');
+    }
     if (isDatabaseUnavailable(error)) {
       logger.error({ event: 'database_unavailable', requestId, err: error }, 'database unavailable');
       res.set('Retry-After', '5');

@@ -11,8 +11,22 @@ export interface MailMessage {
   purpose: string;
 }
 
+/** A mail job as stored in the queue: the message sealed (see sealed.ts), the purpose in clear for logs. */
+export interface SealedMail {
+  sealed: string;
+  purpose: string;
+}
+
 export interface JobPayloads {
-  'mail.send': MailMessage;
+  'mail.send': SealedMail;
+  /** Probe, poster, scrub strip and web rendition of one uploaded clip (tapes also get proposed cuts). */
+  'clip.process': { clipId: number };
+  /** Re-run scene detection on a tape with another threshold. */
+  'tape.detect': { clipId: number; threshold: number };
+  /** Cut a tape into per-snap clips at the confirmed cut points. */
+  'tape.split': { clipId: number; cutsMs: number[] };
+  /** A clip job that used up its attempts: mark the clip failed with the reason. */
+  'clip.dead': { clipId: number };
 }
 export type JobName = keyof JobPayloads;
 
@@ -21,11 +35,31 @@ export interface JobPolicy {
   retryDelay: number;
   retryBackoff: boolean;
   expireInSeconds: number;
+  deadLetter?: JobName;
 }
 
 export const JOB_POLICIES: { readonly [N in JobName]: JobPolicy } = {
   // SMTP relays reject briefly when busy: retry with backoff for about ten minutes.
   'mail.send': { retryLimit: 5, retryDelay: 20, retryBackoff: true, expireInSeconds: 60 },
+  // Media jobs: a few retries for passing faults (storage briefly down, a worker killed). The expiry
+  // is the lease: a job whose worker died is handed out again after it; see jobPolicies().
+  'clip.process': { retryLimit: 3, retryDelay: 5, retryBackoff: true, expireInSeconds: 1200, deadLetter: 'clip.dead' },
+  'tape.detect': { retryLimit: 2, retryDelay: 5, retryBackoff: true, expireInSeconds: 1200, deadLetter: 'clip.dead' },
+  'tape.split': { retryLimit: 2, retryDelay: 5, retryBackoff: true, expireInSeconds: 3600, deadLetter: 'clip.dead' },
+  'clip.dead': { retryLimit: 5, retryDelay: 5, retryBackoff: true, expireInSeconds: 60 },
 };
+
+/**
+ * The policies with media job leases sized from the configured ffmpeg time limit: each clip job runs
+ * up to four ffmpeg steps, so its lease is four limits plus a margin.
+ */
+export function jobPolicies(mediaTimeoutMs: number): { readonly [N in JobName]: JobPolicy } {
+  const lease = Math.ceil((4 * mediaTimeoutMs) / 1000) + 30;
+  return {
+    ...JOB_POLICIES,
+    'clip.process': { ...JOB_POLICIES['clip.process'], expireInSeconds: lease },
+    'tape.detect': { ...JOB_POLICIES['tape.detect'], expireInSeconds: lease },
+  };
+}
 
 export const JOB_NAMES = Object.keys(JOB_POLICIES) as JobName[];

@@ -1,6 +1,6 @@
 import { CompiledQuery, type Kysely } from 'kysely';
 import PgBoss from 'pg-boss';
-import { JOB_NAMES, JOB_POLICIES, type JobName, type JobPayloads } from './jobs';
+import { JOB_NAMES, JOB_POLICIES, type JobName, type JobPayloads, type JobPolicy } from './jobs';
 
 /**
  * The PostgreSQL-backed job queue (pg-boss). `send` can take a Kysely transaction so that a job is
@@ -13,13 +13,22 @@ export interface JobQueue {
   send<N extends JobName>(name: N, data: JobPayloads[N], trx?: Kysely<any>): Promise<string | null>;
 }
 
-export function createJobQueue(connectionString: string, options: { supervise?: boolean; max?: number } = {}): JobQueue {
+export interface QueueOptions {
+  supervise?: boolean;
+  max?: number;
+  policies?: { readonly [N in JobName]: JobPolicy };
+  maintenanceSeconds?: number;
+}
+
+export function createJobQueue(connectionString: string, options: QueueOptions = {}): JobQueue {
+  const policies = options.policies ?? JOB_POLICIES;
   const boss = new PgBoss({
     connectionString,
     schema: 'pgboss',
     max: options.max ?? 4,
     supervise: options.supervise ?? false,
     schedule: false,
+    ...(options.maintenanceSeconds ? { maintenanceIntervalSeconds: options.maintenanceSeconds, monitorStateIntervalSeconds: Math.max(1, options.maintenanceSeconds) } : {}),
   });
   // A lost connection is reported here; pg-boss reconnects by itself.
   boss.on('error', () => undefined);
@@ -29,8 +38,12 @@ export function createJobQueue(connectionString: string, options: { supervise?: 
     async start() {
       if (started) return;
       await boss.start();
-      for (const name of JOB_NAMES) {
-        if (!(await boss.getQueue(name))) await boss.createQueue(name, { name, ...JOB_POLICIES[name] });
+      // Dead-letter queues first: a queue can only name one that exists.
+      const ordered = [...JOB_NAMES].sort((a, b) => Number(Boolean(policies[a].deadLetter)) - Number(Boolean(policies[b].deadLetter)));
+      for (const name of ordered) {
+        const queue = { name, ...policies[name] };
+        if (await boss.getQueue(name)) await boss.updateQueue(name, queue);
+        else await boss.createQueue(name, queue);
       }
       started = true;
     },
@@ -43,7 +56,8 @@ export function createJobQueue(connectionString: string, options: { supervise?: 
       const db = trx
         ? { executeSql: async (text: string, values: unknown[]) => trx.executeQuery(CompiledQuery.raw(text, values)) as Promise<{ rows: any[] }> }
         : undefined;
-      return boss.send(name, data as object, { ...JOB_POLICIES[name], db });
+      const { deadLetter: _deadLetter, ...policy } = policies[name];
+      return boss.send(name, data as object, { ...policy, db });
     },
   };
 }

@@ -28,7 +28,7 @@ export interface TeamMembership {
 export type Access =
   | { kind: 'public' }
   | { kind: 'signedIn' }
-  | { kind: 'team'; roles: readonly Role[]; team: (ctx: AppContext, params: any) => Promise<number | null> };
+  | { kind: 'team'; roles: readonly Role[]; team: (ctx: AppContext, params: any, req: Request) => Promise<number | null> };
 
 export interface RouteResponse {
   description: string;

@@ -135,6 +135,8 @@ export async function importRoster(app: AppContext, teamId: number, csv: string,
   const { rows, errors } = validateRosterRecords(parsed.records);
   if (errors.length > 0) rejectImport(errors);
 
+  const CSV_TO_ENTRY: Record<string, string> = { jersey: 'jersey', positions: 'positions', class: 'class_year', redshirt: 'redshirt', height: 'height_in', weight: 'weight_lb', status: 'status' };
+  const presentColumns = new Set(parsed.header.map((h) => CSV_TO_ENTRY[h]).filter((c): c is string => Boolean(c)));
   const existing = await listRosterRows(app.db, teamId, season.id);
   const byName = new Map(existing.map((r) => [r.name.trim().toLowerCase(), r]));
   const byJersey = new Map(existing.map((r) => [r.jersey, r]));
@@ -158,7 +160,9 @@ export async function importRoster(app: AppContext, teamId: number, csv: string,
       for (const { row, match } of matched) {
         if (match) {
           await trx.updateTable('players').set({ name: row.name }).where('id', '=', match.id).execute();
-          await trx.updateTable('roster_entries').set({ ...entryValues(row), updated_at: app.now() }).where('player_id', '=', match.id).where('season_id', '=', season.id).execute();
+          // A column the file leaves out keeps what the roster already knows.
+          const values = Object.fromEntries(Object.entries(entryValues(row)).filter(([column]) => presentColumns.has(column)));
+          await trx.updateTable('roster_entries').set({ ...values, updated_at: app.now() }).where('player_id', '=', match.id).where('season_id', '=', season.id).execute();
           updated += 1;
         } else {
           await insertPlayer(trx, teamId, season.id, row);

@@ -7,6 +7,7 @@ import { hashPassword, verifyPassword } from '../core/password-hashing';
 import type { SessionUser } from '../core/route';
 import { createLinkToken, hashLinkToken } from '../core/tokens';
 import { invitationMail } from '../mail/templates';
+import { enqueueMail } from '../mail/outbox';
 import { assertAcceptablePassword } from '../auth/auth.service';
 import { findUserByEmail } from '../auth/users.repository';
 import { findInvitationByHash, listPendingInvitations } from './staff.repository';
@@ -80,8 +81,8 @@ export async function createInvitation(app: AppContext, inviter: SessionUser, te
       .returning('id')
       .executeTakeFirst();
     if (!inserted) throw conflict('That address already has a pending invitation. Resend it instead.', { email: 'Already invited.' });
-    await app.jobs.send(
-      'mail.send',
+    await enqueueMail(
+      app,
       invitationMail({ to: input.email, teamName: team.name, inviterName: inviter.name, role: input.role, link: invitationLink(app, token), expiresAt }),
       trx,
     );
@@ -110,8 +111,8 @@ export async function resendInvitation(app: AppContext, inviter: SessionUser, te
       .set({ token_hash: hash, expires_at: expiresAt, last_sent_at: app.now() })
       .where('id', '=', invitationId)
       .execute();
-    await app.jobs.send(
-      'mail.send',
+    await enqueueMail(
+      app,
       invitationMail({ to: current.email, teamName: team.name, inviterName: inviter.name, role: current.role, link: invitationLink(app, token), expiresAt }),
       trx,
     );
@@ -163,6 +164,7 @@ export async function acceptInvitation(app: AppContext, input: InvitationAccept)
       throw validationFailed('Enter the password of your existing Trenchwork account.', { password: 'Not the password of this account.' });
     }
   } else {
+    if (!input.name) throw validationFailed('Enter your name.', { name: 'Enter your name.' });
     assertAcceptablePassword(input.password);
   }
   const passwordHash = account?.password_hash ? null : await hashPassword(input.password);
@@ -180,12 +182,12 @@ export async function acceptInvitation(app: AppContext, input: InvitationAccept)
     if (userId === undefined) {
       const created = await trx
         .insertInto('users')
-        .values({ email: invitation.email, name: input.name, password_hash: passwordHash, password_changed_at: app.now() })
+        .values({ email: invitation.email, name: input.name!, password_hash: passwordHash, password_changed_at: app.now() })
         .returning('id')
         .executeTakeFirstOrThrow();
       userId = created.id;
     } else if (passwordHash) {
-      await trx.updateTable('users').set({ name: input.name, password_hash: passwordHash, password_changed_at: app.now() }).where('id', '=', userId).execute();
+      await trx.updateTable('users').set({ name: input.name!, password_hash: passwordHash, password_changed_at: app.now() }).where('id', '=', userId).execute();
     }
     await trx
       .insertInto('memberships')

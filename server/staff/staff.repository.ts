@@ -62,13 +62,3 @@ export function findInvitationByHash(db: Database, tokenHash: string) {
     .where('invitations.token_hash', '=', tokenHash)
     .executeTakeFirst();
 }
-
-export function countActiveAdmins(db: Database, teamId: number) {
-  return db
-    .selectFrom('memberships')
-    .select((eb) => eb.fn.countAll<number>().as('count'))
-    .where('team_id', '=', teamId)
-    .where('role', '=', 'admin')
-    .where('active', '=', true)
-    .executeTakeFirstOrThrow();
-}

@@ -4,7 +4,7 @@ import type { AppContext } from '../core/context';
 import { conflict, notFound } from '../core/errors';
 import { deleteSessionsOfUser } from '../auth/users.repository';
 import { listInvitations } from './invitations.service';
-import { countActiveAdmins, listMembers } from './staff.repository';
+import { listMembers } from './staff.repository';
 
 function toMember(row: Awaited<ReturnType<typeof listMembers>>[number]): Member {
   return { ...row, role: row.role as Role, joinedAt: row.joinedAt.toISOString() };
@@ -22,21 +22,21 @@ export async function describeStaff(app: AppContext, teamId: number): Promise<St
  */
 export async function updateMember(app: AppContext, teamId: number, membershipId: number, change: { role?: Role; active?: boolean }): Promise<Member> {
   const updated = await app.db.transaction().execute(async (trx) => {
-    const current = await trx
+    // Lock the target and every admin row of the team in one statement, in id order, so two
+    // concurrent changes (two admins demoting each other) queue up instead of deadlocking.
+    const locked = await trx
       .selectFrom('memberships')
       .select(['id', 'user_id', 'role', 'active'])
-      .where('id', '=', membershipId)
       .where('team_id', '=', teamId)
+      .where((eb) => eb.or([eb('id', '=', membershipId), eb('role', '=', 'admin')]))
+      .orderBy('id')
       .forUpdate()
-      .executeTakeFirst();
+      .execute();
+    const current = locked.find((m) => m.id === membershipId);
     if (!current) throw notFound('That member');
     const losesAdmin = current.role === 'admin' && current.active && ((change.role && change.role !== 'admin') || change.active === false);
-    if (losesAdmin) {
-      // Lock the team's admin rows so two concurrent demotions cannot both pass the check.
-      await trx.selectFrom('memberships').select('id').where('team_id', '=', teamId).where('role', '=', 'admin').forUpdate().execute();
-      const { count } = await countActiveAdmins(trx, teamId);
-      if (Number(count) <= 1) throw conflict('A team needs at least one active admin. Make someone else admin first.');
-    }
+    const activeAdmins = locked.filter((m) => m.role === 'admin' && m.active).length;
+    if (losesAdmin && activeAdmins <= 1) throw conflict('A team needs at least one active admin. Make someone else admin first.');
     await trx
       .updateTable('memberships')
       .set({ ...(change.role ? { role: change.role } : {}), ...(change.active !== undefined ? { active: change.active } : {}) })

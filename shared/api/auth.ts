@@ -44,7 +44,8 @@ export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
 
 export const invitationAcceptSchema = z.object({
   token: z.string().min(16).max(200),
-  name: z.string().trim().min(1, 'Enter your name.').max(120),
+  /** Required for a new account; an existing account keeps its name. */
+  name: z.string().trim().max(120).optional(),
   password: newPasswordSchema,
 });
 export type InvitationAccept = z.infer<typeof invitationAcceptSchema>;

@@ -31,7 +31,9 @@ const jerseySchema = z.coerce
   .min(JERSEY_MIN, `Jersey must be ${JERSEY_MIN}–${JERSEY_MAX}.`)
   .max(JERSEY_MAX, `Jersey must be ${JERSEY_MIN}–${JERSEY_MAX}.`);
 
-export const playerInputSchema = z.object({
+// Field rules without defaults: the update schema is these fields, each optional, and must never
+// fill in a default for a field the request did not send.
+const playerFields = {
   name: z.string().trim().min(1, 'Enter a name.').max(120, 'Keep the name under 120 characters.'),
   jersey: jerseySchema,
   positions: z
@@ -40,15 +42,23 @@ export const playerInputSchema = z.object({
     .max(POSITIONS.length)
     .refine((list) => new Set(list).size === list.length, 'A position is listed twice.'),
   classYear: z.enum(CLASS_YEARS, { message: `Class year is one of ${CLASS_YEARS.join(', ')}.` }),
-  redshirt: z.boolean().default(false),
-  heightIn: z.number().int().min(48, 'Height looks wrong.').max(96, 'Height looks wrong.').nullable().default(null),
-  weightLb: z.number().int().min(100, 'Weight looks wrong.').max(500, 'Weight looks wrong.').nullable().default(null),
-  status: z.enum(PLAYER_STATUSES).default('active'),
+  redshirt: z.boolean(),
+  heightIn: z.number().int().min(48, 'Height looks wrong.').max(96, 'Height looks wrong.').nullable(),
+  weightLb: z.number().int().min(100, 'Weight looks wrong.').max(500, 'Weight looks wrong.').nullable(),
+  status: z.enum(PLAYER_STATUSES, { message: `Status is one of ${PLAYER_STATUSES.join(', ')}.` }),
+};
+
+export const playerInputSchema = z.object({
+  ...playerFields,
+  redshirt: playerFields.redshirt.default(false),
+  heightIn: playerFields.heightIn.default(null),
+  weightLb: playerFields.weightLb.default(null),
+  status: playerFields.status.default('active'),
 });
 export type PlayerInput = z.infer<typeof playerInputSchema>;
 
 export const playerCreateSchema = playerInputSchema.extend({ seasonId: idSchema.optional() });
-export const playerUpdateSchema = playerInputSchema.partial();
+export const playerUpdateSchema = z.object(playerFields).partial();
 export type PlayerUpdate = z.infer<typeof playerUpdateSchema>;
 
 export const playerParams = z.object({ teamId: idSchema, playerId: idSchema });

@@ -9,12 +9,15 @@ import { startTestApp, type TestApp } from '../support/test-app';
  * test fails when a route exists without an entry (or an entry without a route).
  */
 type Caller = 'anonymous' | Role | 'otherTeamAdmin';
-const CALLERS: Caller[] = ['anonymous', ...ROLES, 'otherTeamAdmin'];
+// Least privileged first: a route that deletes its object runs for those who must be refused
+// before an allowed caller removes the object.
+const CALLERS: Caller[] = ['anonymous', 'otherTeamAdmin', 'player', 'analyst', 'coach', 'coordinator', 'admin'];
 type Rule = 'public' | 'signedIn' | readonly Role[];
 
 const STAFF: readonly Role[] = ['admin', 'coordinator', 'coach', 'analyst'];
 const EDITORS: readonly Role[] = ['admin', 'coordinator'];
 const ADMIN: readonly Role[] = ['admin'];
+const LIST_EDITORS: readonly Role[] = ['admin', 'coordinator', 'analyst'];
 
 const EXPECTED: Record<string, Rule> = {
   health: 'public',
@@ -38,7 +41,36 @@ const EXPECTED: Record<string, Rule> = {
   resendInvitation: ADMIN,
   revokeInvitation: ADMIN,
   updateMember: ADMIN,
+  listFilmSessions: STAFF,
+  createFilmSession: STAFF,
+  getFilmSession: STAFF,
+  updateFilmSession: STAFF,
+  uploadClips: STAFF,
+  listSessionClips: STAFF,
+  listSnaps: STAFF,
+  createSnap: STAFF,
+  bulkTagSnaps: STAFF,
+  exportSnapsCsv: STAFF,
+  importSnapsCsv: STAFF,
+  tagSnap: STAFF,
+  deleteSnap: STAFF,
+  getClip: STAFF,
+  placeClip: STAFF,
+  removeClip: STAFF,
+  retryClip: STAFF,
+  detectTapeCuts: STAFF,
+  splitTape: STAFF,
+  clipPoster: STAFF,
+  clipStrip: STAFF,
+  clipPlayback: STAFF,
+  listTagLists: STAFF,
+  addTagListItem: LIST_EDITORS,
+  updateTagListItem: LIST_EDITORS,
 };
+
+/** Requests that name their team outside the path carry it, so a stranger is refused for the team, not the form. */
+const QUERY: Record<string, string> = { listFilmSessions: `teamId=` };
+const BODY: Record<string, (f: TeamFixture) => object> = { createFilmSession: (f) => ({ teamId: f.teamId }) };
 
 function expectedStatus(rule: Rule, caller: Caller): 'allowed' | 401 | 403 {
   if (rule === 'public') return 'allowed';
@@ -61,6 +93,7 @@ const clients = new Map<Caller, ApiClient>();
 let operations: Operation[];
 let invitationId: number;
 let coachMembershipId: number;
+let film: { sessionId: number; snapId: number; clipId: number; tagItemId: number };
 
 beforeAll(async () => {
   t = await startTestApp();
@@ -73,6 +106,7 @@ beforeAll(async () => {
     .returning('id')
     .executeTakeFirstOrThrow();
   invitationId = invitation.id;
+  film = await createFilmFixture(t, team);
   coachMembershipId = (await t.ctx.db.selectFrom('memberships').select('id').where('user_id', '=', team.accounts.coach.userId).executeTakeFirstOrThrow()).id;
   for (const caller of CALLERS) {
     const client = t.client();
@@ -87,16 +121,37 @@ beforeAll(async () => {
   operations = Object.entries(doc.paths).flatMap(([path, methods]) =>
     Object.entries(methods).map(([method, op]) => ({ operationId: op.operationId, method: method as Operation['method'], path })),
   );
-  // Sign-out ends the caller's session: run it last.
-  operations.sort((a, b) => Number(a.operationId === 'logout') - Number(b.operationId === 'logout'));
+  // Deletions and sign-out (which ends the caller's session) run last.
+  const last = (o: Operation) => Number(o.method === 'delete') + 2 * Number(o.operationId === 'logout');
+  operations.sort((a, b) => last(a) - last(b));
 });
 
 afterAll(async () => {
   await t?.close();
 });
 
+async function createFilmFixture(app: TestApp, f: TeamFixture) {
+  const db = app.ctx.db;
+  const session = await db
+    .insertInto('film_sessions')
+    .values({ team_id: f.teamId, season_id: f.seasonId, kind: 'game', title: 'Week 1', date: '2026-09-04', opponent: 'Hollow Creek' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const snap = await db.insertInto('snaps').values({ session_id: session.id, order: 1 }).returning('id').executeTakeFirstOrThrow();
+  const clip = await db
+    .insertInto('clips')
+    .values({ team_id: f.teamId, session_id: session.id, snap_id: snap.id, upload_order: 1, original_name: 'play1.mp4', status: 'failed', failure_reason: 'not a video file' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const item = await db.insertInto('tag_list_items').values({ team_id: f.teamId, kind: 'front', name: 'over' }).returning('id').executeTakeFirstOrThrow();
+  return { sessionId: session.id, snapId: snap.id, clipId: clip.id, tagItemId: item.id };
+}
+
 function concretePath(path: string): string {
+  const idFor = path.startsWith('/api/film-sessions/') ? film.sessionId : path.startsWith('/api/snaps/') ? film.snapId : film.clipId;
   const values: Record<string, string> = {
+    id: String(idFor),
+    itemId: String(film.tagItemId),
     teamId: String(team.teamId),
     playerId: String(team.playerIds[0]),
     invitationId: String(invitationId),
@@ -120,9 +175,11 @@ test('every route answers each caller as expected (0 unexpected successes)', asy
   for (const op of operations) {
     for (const caller of CALLERS) {
       const client = clients.get(caller)!;
-      const url = concretePath(op.path);
+      const query = QUERY[op.operationId] !== undefined ? `?${QUERY[op.operationId]}${team.teamId}` : '';
+      const url = concretePath(op.path) + query;
       // Empty bodies: an allowed caller gets a validation error, never a change of state.
-      const res = op.method === 'get' ? await client.get(url) : await client.send(op.method, url, op.operationId === 'logout' ? undefined : {});
+      const body = op.operationId === 'logout' ? undefined : (BODY[op.operationId]?.(team) ?? {});
+      const res = op.method === 'get' ? await client.get(url) : await client.send(op.method, url, body);
       const expected = expectedStatus(EXPECTED[op.operationId]!, caller);
       checked += 1;
       const ok = expected === 'allowed' ? res.status !== 401 && res.status !== 403 && res.status < 500 : res.status === expected;

@@ -4,8 +4,11 @@ import { loadConfig, type Config } from '../../server/core/config';
 import type { AppContext } from '../../server/core/context';
 import { createLogger } from '../../server/core/logger';
 import { createJobQueue, type JobQueue } from '../../server/core/queue';
+import { createObjectStorage } from '../../server/core/storage';
 import { createMailer } from '../../workers/mailer';
+import { createMediaOps } from '../../workers/media-toolkit';
 import { startWorking } from '../../workers/worker';
+import { jobPolicies } from '../../server/core/jobs';
 import { ApiClient } from './api-client';
 import { createTestDatabase, type TestDatabase } from './test-database';
 
@@ -35,10 +38,12 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
     ...env,
   });
   const logger = createLogger(config.logLevel);
-  const jobs = createJobQueue(database.url, { max: 3 });
+  const policies = jobPolicies(config.media.timeoutMs);
+  const jobs = createJobQueue(database.url, { max: 3, policies });
   await jobs.start();
   const clock = { offsetMs: 0 };
-  const ctx: AppContext = { config, db: database.handle.db, logger, jobs, now: () => new Date(Date.now() + clock.offsetMs) };
+  const storage = createObjectStorage(config);
+  const ctx: AppContext = { config, db: database.handle.db, logger, jobs, storage, now: () => new Date(Date.now() + clock.offsetMs) };
   const app = createApp(ctx, database.handle.pool);
   let workerQueue: JobQueue | undefined;
   let mailer: ReturnType<typeof createMailer> | undefined;
@@ -51,15 +56,16 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
     clock,
     client: () => new ApiClient(app),
     async startWorker() {
-      workerQueue = createJobQueue(database.url, { max: 3 });
+      workerQueue = createJobQueue(database.url, { max: 4, policies, supervise: true, maintenanceSeconds: config.jobMaintenanceSeconds });
       await workerQueue.start();
       mailer = createMailer(config);
-      await startWorking(workerQueue, { logger, mailer }, 1);
+      await startWorking(workerQueue, { config, logger, db: database.handle.db, storage, jobs: workerQueue, mailer, media: createMediaOps(config) }, 1);
     },
     async close() {
       await workerQueue?.stop();
       mailer?.close();
       await jobs.stop();
+      storage.destroy();
       await database.drop();
     },
   };
