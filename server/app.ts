@@ -61,7 +61,8 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
           'connect-src': ["'self'", ...media],
           'font-src': ["'self'", 'data:'],
           'object-src': ["'none'"],
-          'base-uri': ["'none'"],
+          // Angular's index.html sets <base href="/">; 'self' still stops a base pointing elsewhere.
+          'base-uri': ["'self'"],
           'form-action': ["'self'"],
           'frame-ancestors': ["'none'"],
           ...(config.secureCookies ? { 'upgrade-insecure-requests': [] } : {}),

@@ -20,6 +20,7 @@ const DATABASE = 'trenchwork';
 export async function runDevStack(root: string): Promise<number> {
   const started = Date.now();
   const env = process.env;
+  const setupMs = Number(env.TW_SETUP_MS ?? 0);
   const devDir = join(root, '.data', 'dev');
   mkdirSync(devDir, { recursive: true });
 
@@ -46,6 +47,14 @@ export async function runDevStack(root: string): Promise<number> {
 
   const runtime = new StackRuntime();
   try {
+    const cluster = useOwn.db
+      ? new PostgresCluster({ dataDir: join(devDir, 'pg'), socketDir: socketDirFor(join(devDir, 'pg-run')), logFile: join(devDir, 'postgres.log'), port: ports.pg, throwaway: false })
+      : undefined;
+    if (cluster?.isRunning()) {
+      // We hold the dev lock, so this server is a leftover of a stack that was killed.
+      say('stopping the PostgreSQL a killed stack left running');
+      await runtime.track(cluster.stop('fast'));
+    }
     await assertPortsFree([
       { port, what: 'the app', variable: 'PORT' },
       ...(useOwn.db ? [{ port: ports.pg, what: 'PostgreSQL', variable: 'TW_PG_PORT' }] : []),
@@ -61,9 +70,6 @@ export async function runDevStack(root: string): Promise<number> {
     const s3 = s3Settings(env, useOwn.s3 ? ports.s3 : undefined);
 
     // The three services are independent: start them side by side.
-    const cluster = useOwn.db
-      ? new PostgresCluster({ dataDir: join(devDir, 'pg'), socketDir: socketDirFor(join(devDir, 'pg-run')), logFile: join(devDir, 'postgres.log'), port: ports.pg, throwaway: false })
-      : undefined;
     const databaseReady = (async () => {
       if (!cluster) return;
       if (await runtime.step(runtime.track(cluster.initIfMissing()))) say(`created a PostgreSQL cluster in ${cluster.options.dataDir}`);
@@ -103,6 +109,7 @@ export async function runDevStack(root: string): Promise<number> {
 
     await runtime.runTask(tsxChild('migrate', entries.migrate(), root, childEnv));
     await runtime.runTask(tsxChild('seed', entries.seed(), root, childEnv));
+    const tasksMs = Date.now() - started - servicesMs;
 
     const worker = runtime.spawn(tsxChild('worker', entries.worker(), root, childEnv), 'app', true);
     lock.recordChild('worker', worker.pid, entries.worker());
@@ -118,7 +125,7 @@ export async function runDevStack(root: string): Promise<number> {
       s3: `${s3.endpoint} (bucket ${s3.bucket})`,
       smtpUrl: childEnv.SMTP_URL as string,
       demoPassword: env.DEMO_PASSWORD ? 'the DEMO_PASSWORD you set' : 'trenchwork-demo',
-      timing: `ready in ${seconds(Date.now() - started)} (setup ${seconds(Number(env.TW_SETUP_MS ?? 0))}, services ${seconds(servicesMs)})`,
+      timing: `Ready in ${seconds(setupMs + Date.now() - started)} (setup ${seconds(setupMs)}, services ${seconds(servicesMs)}, migrate + seed ${seconds(tasksMs)}, app ${seconds(Date.now() - started - servicesMs - tasksMs)})`,
     });
 
     const reason = await runtime.untilStop();
@@ -153,7 +160,7 @@ function printBanner(info: {
     '',
     `  ${bold('Trenchwork is running:')} ${paint(32, info.appUrl)}`,
     '',
-    `  Dev mailbox   ${info.mailboxUrl ? `${info.mailboxUrl}/messages` : '(none: SMTP_URL points elsewhere)'}`,
+    `  Dev mailbox   ${info.mailboxUrl ? `${info.appUrl}/dev/mailbox (raw: ${info.mailboxUrl}/messages)` : '(none: SMTP_URL points elsewhere)'}`,
     `  SMTP          ${info.smtpUrl}`,
     `  PostgreSQL    ${info.databaseUrl.replace(/\/\/([^:@/]+):[^@/]+@/, '//$1:***@')}`,
     `  S3            ${info.s3}`,

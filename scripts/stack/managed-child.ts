@@ -97,7 +97,10 @@ export class ManagedChild {
   async stop(graceMs: number): Promise<ChildExit> {
     if (this.exitInfo) return this.exitInfo;
     this.signal('SIGTERM');
-    const timer = setTimeout(() => this.signal('SIGKILL'), graceMs);
+    const timer = setTimeout(() => {
+      if (graceMs > 0) process.stderr.write(`[stack] ${this.name} did not stop within ${graceMs / 1000} s of SIGTERM: killing it\n`);
+      this.signal('SIGKILL');
+    }, graceMs);
     const exit = await this.exited;
     clearTimeout(timer);
     return exit;

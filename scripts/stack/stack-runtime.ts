@@ -26,6 +26,7 @@ const SERVICE_GRACE_MS = 3_000;
 export class StackRuntime {
   private readonly children: { child: ManagedChild; tier: Tier }[] = [];
   private readonly clusters: PostgresCluster[] = [];
+  private readonly watched: PostgresCluster[] = [];
   private readonly pending: Promise<unknown>[] = [];
   private reason: StopReason | undefined;
   private resolveStop!: (reason: StopReason) => void;
@@ -98,8 +99,9 @@ export class StackRuntime {
     const starting = cluster.start();
     this.pending.push(starting.catch(() => undefined));
     await this.step(starting);
+    this.watched.push(cluster);
     this.watchdog ??= setInterval(() => {
-      for (const c of this.clusters) {
+      for (const c of this.watched) {
         if (!this.reason && !c.isRunning()) {
           this.fail(`PostgreSQL on port ${c.port} stopped unexpectedly\n--- ${c.options.logFile} (last lines) ---\n${c.logTail()}`);
         }

@@ -7,7 +7,7 @@ import { fail, say, seconds, warn } from './log';
 import { describeExit } from './managed-child';
 import { freePorts } from './ports';
 import { PortInUseError, PostgresCluster, socketDirFor } from './postgres-cluster';
-import { s3Settings, serviceEnv, staticDir, throwawaySessionSecret } from './service-env';
+import { DEFAULT_BUCKET, s3Settings, serviceEnv, staticDir, throwawaySessionSecret } from './service-env';
 import { settleAll, StackRuntime, StopRequested } from './stack-runtime';
 
 const DATABASE = 'trenchwork_test';
@@ -43,10 +43,10 @@ export async function runTestStack(root: string, jestArgs: readonly string[]): P
     const databaseReady = startThrowawayCluster(runtime, runDir, socketDir);
     // Fakes bind port 0 and report the port they got: no race for ports with a parallel run.
     const s3Ready = runtime.startService<{ port: number }>(
-      tsxChild('s3', entries.s3Fake(), root, { ...process.env, TW_S3_DIR: join(runDir, 's3'), TW_S3_PORT: '0' }, { file: join(runDir, 's3-fake.log') }),
+      tsxChild('s3', entries.s3Fake(), root, { ...process.env, TW_S3_DIR: join(runDir, 's3'), TW_S3_PORT: '0', S3_BUCKET: DEFAULT_BUCKET }, { file: join(runDir, 's3-fake.log') }),
     );
     const smtpReady = runtime.startService<{ smtpPort: number; httpPort: number }>(
-      tsxChild('mail', entries.smtpFake(), root, { ...process.env, TW_SMTP_PORT: '0', TW_MAILBOX_PORT: '0' }, { file: join(runDir, 'smtp-fake.log') }),
+      tsxChild('mail', entries.smtpFake(), root, { ...process.env, TW_SMTP_PORT: '0', TW_MAILBOX_PORT: '0', TW_MAIL_FILE: '' }, { file: join(runDir, 'smtp-fake.log') }),
     );
     await settleAll([databaseReady, s3Ready, smtpReady]);
     const [cluster, s3, smtp] = [await databaseReady, await s3Ready, await smtpReady];

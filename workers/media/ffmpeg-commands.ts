@@ -310,11 +310,25 @@ export function sceneDetectCommand(o: SceneDetectOptions): FfmpegCommand {
 }
 
 /**
+ * Decodes up to the first error, printing one frame time every half second: the last time printed
+ * says where the damage is (progress lines come by wall clock, far too coarse on fast decodes).
+ */
+export function locateDamageCommand(o: Omit<CommandBase, 'strict'>): FfmpegCommand {
+  return {
+    globalOptions: globalOptions({ strict: true, logLevel: 'info' }),
+    inputs: [{ options: inputGuards(o.inputFormat), url: fileUrl(o.input) }],
+    outputOptions: ['-map', '0:v:0', '-map', '0:a:0?', '-sn', '-dn', '-vf', "select='isnan(prev_selected_t)+gte(t-prev_selected_t,0.5)',showinfo", '-f', 'null'],
+    output: '-',
+    durationSeconds: null,
+  };
+}
+
+/**
  * The times of the frames showinfo printed. pts × the filter's time base is exact; pts_time is
  * printed with six significant digits only (10 ms steps two hours in), so it is the fallback.
  * Not anchored to line starts: a progress line ending in \r can share a line with showinfo.
  */
-export function parseSceneTimes(stderr: string): number[] {
+export function parseShowinfoTimes(stderr: string): number[] {
   const base = /\[Parsed_showinfo_\d+ @ [^\]]*\] config in time_base: (\d+)\/(\d+)/.exec(stderr);
   const num = base ? Number(base[1]) : 0;
   const den = base ? Number(base[2]) : 0;
@@ -325,6 +339,9 @@ export function parseSceneTimes(stderr: string): number[] {
   }
   return [...new Set(times)].sort((a, b) => a - b);
 }
+
+/** Scene cuts are the frames `select` let through to showinfo. */
+export const parseSceneTimes = parseShowinfoTimes;
 
 // ── Cuts ─────────────────────────────────────────────────────────────────────────────────────
 

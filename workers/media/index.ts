@@ -30,8 +30,10 @@ import {
   decodeCheckCommand,
   fitWidth,
   keyframeTimes,
+  locateDamageCommand,
   nearestKeyframe,
   parseSceneTimes,
+  parseShowinfoTimes,
   posterCommand,
   renditionCommand,
   renditionPlan,
@@ -44,7 +46,7 @@ import {
   type StripLayout,
 } from './ffmpeg-commands';
 import { probe, run, runProbe, setFfmpegPath, setFfprobePath } from './ffmpeg-runner';
-import { MediaError, REASONS } from './media-error';
+import { MediaError, REASONS, isMediaError, mediaErrorFromStderr } from './media-error';
 import { readBoxLayout } from './mp4-boxes';
 import { parseVideoPackets, type ProbeResult, type VideoPacket } from './probe-result';
 
@@ -107,7 +109,7 @@ export async function makePoster(
   const info = options.info ?? (await probeMedia(input, options));
   const atSeconds = options.atSeconds ?? choosePosterSeconds(info.durationMs / 1000);
   const maxWidth = options.maxWidth ?? 1280;
-  await execute(posterCommand({ input, inputFormat: info.formatName, output, atSeconds, maxWidth, strict: !options.tolerateDamage }), options);
+  await execute(posterCommand({ input, inputFormat: info.formatName, output, atSeconds, maxWidth, strict: !options.tolerateDamage }), options, { input, inputFormat: info.formatName });
   await ensureWritten(output, 'no picture could be taken from the video');
   return { atSeconds, ...fitWidth({ width: info.displayWidth, height: info.displayHeight }, maxWidth) };
 }
@@ -124,7 +126,7 @@ export async function makeStrip(input: string, output: string, options: StepOpti
     display: { width: info.displayWidth, height: info.displayHeight },
     strict: !options.tolerateDamage,
   });
-  await execute(command, options);
+  await execute(command, options, { input, inputFormat: info.formatName });
   await ensureWritten(output, 'no scrub strip could be made from the video');
   return layout;
 }
@@ -142,6 +144,7 @@ export async function makeRendition(input: string, output: string, options: Step
   await execute(
     renditionCommand({ input, inputFormat: info.formatName, output, plan, maxHeight, durationSeconds: durationSeconds(info), strict: !options.tolerateDamage }),
     options,
+    { input, inputFormat: info.formatName },
   );
   await ensureWritten(output, 'no web version could be made from the video');
   return { plan, written: true };
@@ -150,7 +153,7 @@ export async function makeRendition(input: string, output: string, options: Step
 /** Decodes the whole file; throws MediaError 'damaged' ("stream unreadable near m:ss") on the first error. */
 export async function verifyDecodable(input: string, options: StepOptions = {}): Promise<void> {
   const info = options.info ?? (await probeMedia(input, options));
-  await execute(decodeCheckCommand({ input, inputFormat: info.formatName, durationSeconds: durationSeconds(info) }), options);
+  await execute(decodeCheckCommand({ input, inputFormat: info.formatName, durationSeconds: durationSeconds(info) }), options, { input, inputFormat: info.formatName });
 }
 
 /** Proposed cut times in seconds from the start of the file, ascending. */
@@ -159,6 +162,7 @@ export async function detectScenes(input: string, threshold = 0.3, options: Step
   const stderr = await execute(
     sceneDetectCommand({ input, inputFormat: info.formatName, threshold, durationSeconds: durationSeconds(info), strict: !options.tolerateDamage }),
     options,
+    { input, inputFormat: info.formatName },
   );
   return parseSceneTimes(stderr);
 }
@@ -207,6 +211,7 @@ export async function cutSegment(
   await execute(
     cutCommand({ input, inputFormat: info.formatName, output, startSeconds, endSeconds, mode, fps: info.fps, copyVideoSeconds, strict: !options.tolerateDamage }),
     options,
+    { input, inputFormat: info.formatName },
   );
   await ensureWritten(output, 'no clip could be cut from the video');
   return { mode };
@@ -229,8 +234,27 @@ function durationSeconds(info: ProbeResult): number {
   throw new MediaError('failed', REASONS.failed, 'duration unknown');
 }
 
-function execute(command: FfmpegCommand, options: StepOptions): Promise<string> {
-  return run(command, { timeoutMs: options.timeoutMs ?? defaultTimeoutMs, onProgress: options.onProgress, onStart: options.onStart });
+async function execute(command: FfmpegCommand, options: StepOptions, source?: { input: string; inputFormat: string }): Promise<string> {
+  const timeoutMs = options.timeoutMs ?? defaultTimeoutMs;
+  try {
+    return await run(command, { timeoutMs, onProgress: options.onProgress, onStart: options.onStart });
+  } catch (error) {
+    if (source && isMediaError(error) && error.code === 'damaged') throw await locateDamage(source, timeoutMs, error);
+    throw error;
+  }
+}
+
+/** A second, slower decode that prints frame times, to say where the damage is. */
+async function locateDamage(source: { input: string; inputFormat: string }, timeoutMs: number, original: MediaError): Promise<MediaError> {
+  try {
+    await run(locateDamageCommand(source), { timeoutMs });
+    return original; // decodes cleanly on its own: keep what the first run said
+  } catch (error) {
+    if (!isMediaError(error) || error.code !== 'damaged') return original;
+    const times = parseShowinfoTimes(error.stderr);
+    const near = times.length > 0 ? times[times.length - 1] : undefined;
+    return near === undefined ? original : mediaErrorFromStderr(original.stderr, { nearSeconds: near });
+  }
 }
 
 /** ffmpeg exits 0 with "Output file is empty" when no frame qualified (e.g. a time past the end). */

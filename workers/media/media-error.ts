@@ -33,6 +33,8 @@ export class MediaError extends Error {
     readonly code: MediaErrorCode,
     readonly reason: string,
     readonly detail = '',
+    /** ffmpeg's whole stderr (progress lines collapsed), for a second look such as locating damage. */
+    readonly stderr = '',
   ) {
     super(reason);
     this.name = 'MediaError';
@@ -60,7 +62,14 @@ export const REASONS = {
 export interface FailureContext {
   /** The file starts like an MP4/QuickTime file (a known box at offset 4). */
   looksLikeMp4?: boolean;
+  /** Where decoding stopped, when known better than the last progress line (see locateDamage). */
+  nearSeconds?: number;
 }
+
+// With -xerror ffmpeg stops at the decoder's own complaint, often its only line, e.g.
+// "[aac @ 0x55c7a3cfa600] channel element 3.0 is not allocated". [NULL @ …] is the H.264 parser.
+const DECODER_LINE =
+  /^\[(h264|hevc|mpeg4|mpeg1video|mpeg2video|mjpeg|vp8|vp9|av1|libdav1d|prores|dvvideo|vc1|wmv[123]|msmpeg4v?[123]?|aac|aac_latm|mp3|mp3float|mp2|mp2float|ac3|eac3|opus|vorbis|flac|alac|pcm_\w+|NULL) @ 0x[0-9a-f]+\] /m;
 
 /**
  * Maps ffmpeg/ffprobe stderr to a code and reason. Pure, so every pattern is unit-tested against
@@ -75,8 +84,9 @@ export function classifyFailure(stderr: string, context: FailureContext = {}): {
   }
   // The MP4 demuxer says "partial file" when a sample lies past the end of the file.
   if (/: partial file|Truncating packet of size/i.test(stderr)) return { code: 'truncated', reason: REASONS.truncated };
-  if (/Error while decoding stream|corrupt input packet|Invalid NAL unit size|Error splitting the input into NAL units|error while decoding MB/i.test(stderr)) {
-    return { code: 'damaged', reason: `stream unreadable near ${formatMediaTime(lastProgressSeconds(stderr) ?? 0)}` };
+  if (/Error while decoding stream|corrupt input packet|corrupt decoded frame/i.test(stderr) || DECODER_LINE.test(stderr)) {
+    const near = context.nearSeconds ?? lastProgressSeconds(stderr) ?? 0;
+    return { code: 'damaged', reason: `stream unreadable near ${formatMediaTime(near)}` };
   }
   if (/Stream map '0:v:0' matches no streams|does not contain any stream/i.test(stderr)) {
     return { code: 'audio_only', reason: REASONS.audio_only };
@@ -89,7 +99,7 @@ export function classifyFailure(stderr: string, context: FailureContext = {}): {
 
 export function mediaErrorFromStderr(stderr: string, context: FailureContext = {}): MediaError {
   const { code, reason } = classifyFailure(stderr, context);
-  return new MediaError(code, reason, excerpt(stderr));
+  return new MediaError(code, reason, excerpt(stderr), stderr);
 }
 
 /** The last `time=HH:MM:SS.xx` progress mark ffmpeg printed, in seconds (where decoding had got to). */

@@ -1,9 +1,12 @@
-import { HttpClient } from '@angular/common/http';
+import { HttpClient, HttpErrorResponse } from '@angular/common/http';
 import { Injectable, inject, signal } from '@angular/core';
 import { firstValueFrom } from 'rxjs';
 import { inlineErrors } from '../http/inline-errors';
 
-/** Whether the API runs in development and answers /api/dev/mail (it is 404 in production). */
+/**
+ * Whether the API runs in development and has /api/dev/mail (404 in production). A 503 still counts:
+ * the route exists and the page then explains that the local mailbox is not answering.
+ */
 @Injectable({ providedIn: 'root' })
 export class DevMailProbe {
   private readonly http = inject(HttpClient);
@@ -13,7 +16,7 @@ export class DevMailProbe {
   check(): Promise<boolean> {
     this.answer ??= firstValueFrom(this.http.get('/api/dev/mail', { context: inlineErrors() })).then(
       () => true,
-      () => false,
+      (failure: unknown) => failure instanceof HttpErrorResponse && failure.status !== 404 && failure.status !== 0,
     ).then((ok) => {
       this.available.set(ok);
       return ok;

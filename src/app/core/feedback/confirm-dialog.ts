@@ -20,7 +20,7 @@ export interface ConfirmDialogData {
     </mat-dialog-content>
     <mat-dialog-actions align="end">
       <button mat-button type="button" [mat-dialog-close]="false">Keep it</button>
-      <button mat-flat-button type="button" [mat-dialog-close]="true" cdkFocusInitial>{{ data.confirmLabel }}</button>
+      <button mat-flat-button type="button" [mat-dialog-close]="true">{{ data.confirmLabel }}</button>
     </mat-dialog-actions>
   `,
 })

@@ -11,6 +11,6 @@ export class Notifier {
   }
 
   error(message: string): void {
-    this.snackBar.open(message, 'Dismiss', { politeness: 'assertive', panelClass: 'tw-snack-error' });
+    this.snackBar.open(message, 'Dismiss', { politeness: 'assertive' });
   }
 }

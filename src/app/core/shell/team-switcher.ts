@@ -55,6 +55,8 @@ import { urlAllowedFor } from './nav-links';
       max-width: 100%;
     }
     .name {
+      display: block;
+      max-width: min(32vw, 280px);
       overflow: hidden;
       text-overflow: ellipsis;
       white-space: nowrap;

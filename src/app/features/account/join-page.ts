@@ -7,6 +7,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { Router, RouterLink } from '@angular/router';
 import type { InvitationPreview } from '@shared/api/auth';
+import { PASSWORD_MAX_LENGTH } from '@shared/passwords';
 import { ROLE_LABELS } from '@shared/roles';
 import { StatePanel } from '../../core/feedback/state-panel';
 import { applyServerErrors, fieldError } from '../../core/forms/field-errors';
@@ -45,29 +46,42 @@ export class JoinPage {
     return token ? { url: `/api/invitations/${encodeURIComponent(token)}`, context: inlineErrors() } : undefined;
   });
 
-  protected readonly form = new FormGroup({
+  /** A new address: name and a new password, checked against the policy. */
+  protected readonly newAccount = new FormGroup({
     name: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(120)] }),
     passwords: newPasswordGroup(),
   });
+  /** An address that already has an account confirms with that account's password. */
+  protected readonly existingAccount = new FormGroup({
+    password: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(PASSWORD_MAX_LENGTH)] }),
+  });
   protected readonly submitting = signal(false);
   protected readonly problem = signal<string | null>(null);
+  protected readonly shown = signal(false);
 
-  protected submit(): void {
+  protected submit(invite: InvitationPreview): void {
     this.problem.set(null);
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
+    const form = invite.hasAccount ? this.existingAccount : this.newAccount;
+    if (form.invalid) {
+      form.markAllAsTouched();
       return;
     }
+    const body = invite.hasAccount
+      ? // The API keeps the existing account's name; the schema still wants one, so the address stands in.
+        { token: this.token(), name: invite.email.slice(0, 120), password: this.existingAccount.controls.password.value }
+      : {
+          token: this.token(),
+          name: this.newAccount.controls.name.value.trim(),
+          password: this.newAccount.controls.passwords.controls.password.value,
+        };
     this.submitting.set(true);
-    const body = { token: this.token(), name: this.form.controls.name.value.trim(), password: this.form.controls.passwords.controls.password.value };
     this.http.post('/api/invitations/accept', body, { context: inlineErrors() }).subscribe({
       next: () => void this.router.navigate(['/sign-in'], { queryParams: { notice: 'joined' } }),
       error: (failure: unknown) => {
         this.submitting.set(false);
         const error = readApiError(failure);
-        const unplaced = hasFieldErrors(error)
-          ? applyServerErrors(this.form, error.fields, { password: 'passwords.password' })
-          : [error.message];
+        const aliases: Record<string, string> = invite.hasAccount ? {} : { password: 'passwords.password' };
+        const unplaced = hasFieldErrors(error) ? applyServerErrors(form, error.fields, aliases) : [error.message];
         this.problem.set(unplaced[0] ?? null);
       },
     });
