@@ -7,6 +7,7 @@ import { pinoHttp } from 'pino-http';
 import { randomUUID } from 'node:crypto';
 import type pg from 'pg';
 import { createLoginThrottle } from './auth/login-throttle';
+import { createResetThrottle } from './auth/reset-throttle';
 import { createPassport } from './auth/passport';
 import type { AppContext } from './core/context';
 import { createCsrf } from './core/csrf';
@@ -76,6 +77,7 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
   const passport = createPassport(ctx);
   const csrf = createCsrf(config, logger);
   const throttle = createLoginThrottle(config, pool);
+  const resetThrottle = createResetThrottle(pool);
 
   app.use(cookieParser());
   app.use(createSessionMiddleware(config, pool));
@@ -84,7 +86,7 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
   app.use(enforceAbsoluteTimeout(config, ctx.now));
   app.use(csrf.middleware);
 
-  const routes = allRoutes({ passport, throttle, csrf, version: VERSION, startedAt: Date.now() });
+  const routes = allRoutes({ passport, throttle, resetThrottle, csrf, version: VERSION, startedAt: Date.now() });
   const mounted = routes.filter((r) => !(r.developmentOnly && config.env === 'production'));
   const openApi = buildOpenApiDocument(mounted, VERSION);
 

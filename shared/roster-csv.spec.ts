@@ -3,8 +3,9 @@ import type { Player } from './api/roster';
 import { CLASS_YEARS, PLAYER_STATUSES, POSITIONS } from './roster';
 import { checkRosterHeader, ROSTER_CSV_COLUMNS, rosterRecord, validateRosterRecords, type RosterCsvRecord } from './roster-csv';
 
+// Names differ by jersey so that rows of one file never repeat a player (that is its own error).
 const good = (over: RosterCsvRecord = {}): RosterCsvRecord => ({
-  name: 'Avery Lintel',
+  name: over.jersey && over.jersey !== '70' ? `Avery Lintel ${over.jersey}` : 'Avery Lintel',
   jersey: '70',
   positions: 'LT',
   class: 'Jr',
@@ -148,5 +149,16 @@ describe('rosterRecord (export) round-trips through validateRosterRecords (impor
         expect(rows).toEqual([p]);
       }),
     );
+  });
+});
+
+describe('repeated names in one file', () => {
+  test('the second row with the same name is reported, naming the first', () => {
+    const { errors, rows } = validateRosterRecords([
+      { name: 'Avery Lintel', jersey: '70', positions: 'LT', class: 'Jr' },
+      { name: 'avery lintel', jersey: '71', positions: 'LG', class: 'Jr' },
+    ]);
+    expect(errors).toEqual([{ row: 3, field: 'name', message: 'avery lintel is also on row 2.' }]);
+    expect(rows).toHaveLength(1);
   });
 });

@@ -1,4 +1,5 @@
 import { CLASS_YEAR_LABELS, CLASS_YEARS, POSITIONS, PLAYER_STATUSES, ROSTER_CSV_COLUMNS, parseHeight, formatHeight, type RosterCsvColumn } from './roster';
+import { defuseCell, restoreCell } from './csv-cells';
 import { playerInputSchema, type PlayerInput, type Player, type RosterImportRowError } from './api/roster';
 
 export { ROSTER_CSV_COLUMNS, type RosterCsvColumn };
@@ -41,6 +42,7 @@ export function validateRosterRecords(records: RosterCsvRecord[]): RosterCsvResu
   const rows: PlayerInput[] = [];
   const errors: RosterImportRowError[] = [];
   const jerseyRows = new Map<number, number>();
+  const nameRows = new Map<string, number>();
   records.forEach((record, index) => {
     const row = index + 2;
     const rowErrors: RosterImportRowError[] = [];
@@ -56,7 +58,7 @@ export function validateRosterRecords(records: RosterCsvRecord[]): RosterCsvResu
     const positionsText = (record.positions ?? '').trim();
     const positions = positionsText === '' ? [] : positionsText.split(/[\s/;|]+/).map((p) => p.toUpperCase());
     const candidate = {
-      name: record.name ?? '',
+      name: restoreCell(record.name ?? ''),
       jersey: (record.jersey ?? '').trim() === '' ? undefined : record.jersey?.trim(),
       positions,
       classYear: normaliseClass(record.class ?? ''),
@@ -75,6 +77,9 @@ export function validateRosterRecords(records: RosterCsvRecord[]): RosterCsvResu
         rowErrors.push({ row, field, message: columnMessage(field, issue.message) });
       }
     } else {
+      const sameName = nameRows.get(parsed.data.name.toLowerCase());
+      if (sameName !== undefined) rowErrors.push({ row, field: 'name', message: `${parsed.data.name} is also on row ${sameName}.` });
+      else nameRows.set(parsed.data.name.toLowerCase(), row);
       const earlier = jerseyRows.get(parsed.data.jersey);
       if (earlier !== undefined) {
         rowErrors.push({ row, field: 'jersey', message: `Jersey ${parsed.data.jersey} is also on row ${earlier}.` });
@@ -106,7 +111,7 @@ function columnMessage(column: string, message: string): string {
 /** One CSV record per player, in our column order, for export (round-trips through import). */
 export function rosterRecord(player: Player): Record<RosterCsvColumn, string> {
   return {
-    name: player.name,
+    name: defuseCell(player.name),
     jersey: String(player.jersey),
     positions: player.positions.join(' '),
     class: player.classYear,

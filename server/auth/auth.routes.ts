@@ -14,12 +14,14 @@ import { defineRoute, Reply, type RouteDefinition, type SessionUser } from '../c
 import type { createCsrf } from '../core/csrf';
 import { confirmPasswordReset, describeMe, requestPasswordReset } from './auth.service';
 import type { LoginThrottle } from './login-throttle';
+import type { ResetThrottle } from './reset-throttle';
 import type { createPassport } from './passport';
 import { acceptInvitation, previewInvitation } from '../staff/invitations.service';
 
 interface AuthDeps {
   passport: ReturnType<typeof createPassport>;
   throttle: LoginThrottle;
+  resetThrottle: ResetThrottle;
   csrf: ReturnType<typeof createCsrf>;
 }
 
@@ -118,9 +120,16 @@ export function authRoutes(deps: AuthDeps): RouteDefinition[] {
       tags: ['auth'],
       access: { kind: 'public' },
       body: passwordResetRequestSchema,
-      responses: { 202: { description: 'Accepted' } },
-      handler: async ({ app, body }) => {
-        await requestPasswordReset(app, body.email);
+      responses: { 202: { description: 'Accepted' }, 429: { description: 'Too many requests from this address' } },
+      handler: async ({ app, req, res, body }) => {
+        const verdict = await deps.resetThrottle.check(body.email, req.ip ?? 'unknown');
+        if (typeof verdict === 'number') {
+          res.set('Retry-After', String(Math.ceil(verdict / 1000)));
+          app.logger.warn({ event: 'rate_limited', route: 'password_reset' }, 'reset requests throttled');
+          throw new AppError(429, 'too_many_requests', 'Too many reset requests from here. Try again later.');
+        }
+        if (verdict === 'send') await requestPasswordReset(app, body.email);
+        else app.logger.warn({ event: 'rate_limited', route: 'password_reset_address' }, 'reset mail for one address throttled');
         return new Reply(202, {});
       },
     }),

