@@ -1,5 +1,5 @@
 import type pg from 'pg';
-import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
+import { pgLimiter, takePoint } from './rate-points';
 import type { Config } from '../core/config';
 
 /**
@@ -19,27 +19,14 @@ export interface LoginThrottle {
 }
 
 export function createLoginThrottle(config: Config, pool: pg.Pool): LoginThrottle {
-  const common = { storeClient: pool, storeType: 'pool', tableName: 'rate_limits', tableCreated: true, duration: config.loginThrottle.windowSeconds };
-  const perAccount = new RateLimiterPostgres({ ...common, keyPrefix: 'login_account', points: config.loginThrottle.perAccount });
-  const perIp = new RateLimiterPostgres({ ...common, keyPrefix: 'login_ip', points: config.loginThrottle.perIp });
-
-  /** 0 when a point was taken; otherwise how long until one frees up. */
-  async function take(limiter: RateLimiterPostgres, key: string): Promise<number> {
-    try {
-      await limiter.consume(key);
-      return 0;
-    } catch (error) {
-      // A rejection with RateLimiterRes means no point is left; anything else is a real failure.
-      if (error instanceof RateLimiterRes) return Math.max(error.msBeforeNext, 1000);
-      throw error;
-    }
-  }
-
+  const window = config.loginThrottle.windowSeconds;
+  const perAccount = pgLimiter(pool, 'login_account', config.loginThrottle.perAccount, window);
+  const perIp = pgLimiter(pool, 'login_ip', config.loginThrottle.perIp, window);
   return {
     async reserveAttempt(email, ip) {
-      const address = await take(perIp, ip);
+      const address = await takePoint(perIp, ip);
       if (address > 0) return address;
-      const account = await take(perAccount, email);
+      const account = await takePoint(perAccount, email);
       if (account > 0) await perIp.reward(ip, 1);
       return account;
     },

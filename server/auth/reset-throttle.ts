@@ -1,5 +1,5 @@
 import type pg from 'pg';
-import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
+import { pgLimiter, takePoint } from './rate-points';
 
 /**
  * Limits password-reset requests so the form cannot be used to flood someone's inbox: at most 3 mails
@@ -12,23 +12,13 @@ export interface ResetThrottle {
 }
 
 export function createResetThrottle(pool: pg.Pool): ResetThrottle {
-  const common = { storeClient: pool, storeType: 'pool', tableName: 'rate_limits', tableCreated: true, duration: 3600 };
-  const perAddress = new RateLimiterPostgres({ ...common, keyPrefix: 'reset_email', points: 3 });
-  const perIp = new RateLimiterPostgres({ ...common, keyPrefix: 'reset_ip', points: 20 });
-  const take = async (limiter: RateLimiterPostgres, key: string): Promise<number> => {
-    try {
-      await limiter.consume(key);
-      return 0;
-    } catch (error) {
-      if (error instanceof RateLimiterRes) return Math.max(error.msBeforeNext, 1000);
-      throw error;
-    }
-  };
+  const perAddress = pgLimiter(pool, 'reset_email', 3, 3600);
+  const perIp = pgLimiter(pool, 'reset_ip', 20, 3600);
   return {
     async check(email, ip) {
-      const wait = await take(perIp, ip);
+      const wait = await takePoint(perIp, ip);
       if (wait > 0) return wait;
-      return (await take(perAddress, email)) > 0 ? 'quiet' : 'send';
+      return (await takePoint(perAddress, email)) > 0 ? 'quiet' : 'send';
     },
   };
 }
