@@ -1,20 +1,10 @@
+import type { ProbeResult } from './media';
+
 /**
  * What the clip jobs need from the media toolkit (workers/media): file in, file out, facts back.
- * Kept as an interface so the handlers read as the pipeline they are, and tests can see each step.
+ * An interface so the handlers read as the pipeline they are, and tests can swap a step.
  */
-export interface ProbeFacts {
-  formatName: string;
-  durationMs: number;
-  width: number;
-  height: number;
-  fps: number;
-  videoCodec: string;
-  audioCodec: string | null;
-  pixelFormat: string | null;
-  rotation: number;
-  hasVideo: boolean;
-  hasAudio: boolean;
-}
+export type ProbeFacts = ProbeResult;
 
 export interface StripFacts {
   frames: number;
@@ -34,12 +24,12 @@ export interface MediaOps {
   withTempDir<T>(fn: (dir: string) => Promise<T>): Promise<T>;
 }
 
-/** A media failure a coach can read ("not a video file", "stream unreadable near 0:12"…). */
-export interface HumanReadableMediaError {
-  reason: string;
-}
-
+/**
+ * A failure a coach can read ("not a video file", "stream unreadable near 0:12"…) that will not
+ * change on a retry. Errors that might pass (a timeout under load, storage down) return null.
+ */
 export function humanReason(error: unknown): string | null {
-  const reason = (error as Partial<HumanReadableMediaError> | null)?.reason;
-  return typeof reason === 'string' && reason.length > 0 ? reason : null;
+  const e = error as { reason?: unknown; permanent?: unknown } | null;
+  if (typeof e?.reason !== 'string' || e.reason.length === 0) return null;
+  return e.permanent === false ? null : e.reason;
 }

@@ -5,6 +5,7 @@ import {
   GetObjectCommand,
   HeadBucketCommand,
   HeadObjectCommand,
+  ListObjectsV2Command,
   S3Client,
   type GetObjectCommandOutput,
 } from '@aws-sdk/client-s3';
@@ -26,6 +27,8 @@ export interface ObjectStorage {
   get(key: string, range?: string): Promise<GetObjectCommandOutput>;
   head(key: string): Promise<{ size: number; contentType: string | undefined } | null>;
   remove(keys: string[]): Promise<void>;
+  /** Every key under a prefix (for clean-up checks and backups). */
+  list(prefix: string): Promise<string[]>;
   destroy(): void;
 }
 
@@ -94,6 +97,16 @@ export function createObjectStorage(config: Config, client: S3Client = createS3C
       for (let i = 0; i < unique.length; i += 1000) {
         await client.send(new DeleteObjectsCommand({ Bucket: bucket, Delete: { Objects: unique.slice(i, i + 1000).map((Key) => ({ Key })), Quiet: true } }));
       }
+    },
+    async list(prefix) {
+      const keys: string[] = [];
+      let token: string | undefined;
+      do {
+        const page = await client.send(new ListObjectsV2Command({ Bucket: bucket, Prefix: prefix, ContinuationToken: token }));
+        for (const item of page.Contents ?? []) if (item.Key) keys.push(item.Key);
+        token = page.IsTruncated ? page.NextContinuationToken : undefined;
+      } while (token);
+      return keys;
     },
     destroy() {
       client.destroy();

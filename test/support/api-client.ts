@@ -56,6 +56,15 @@ export class ApiClient {
     return this.send('delete', path);
   }
 
+  /** A multipart upload like the browser's FormData: fields first, then each file as `files`. */
+  async upload(path: string, files: { path: string; name?: string }[], fields: Record<string, string> = {}): Promise<request.Response> {
+    await this.prime();
+    let req = this.agent.post(path).set('X-XSRF-TOKEN', this.xsrf ?? '');
+    for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
+    for (const file of files) req = req.attach('files', file.path, file.name ? { filename: file.name } : undefined);
+    return this.remember(await req);
+  }
+
   async login(email: string, password: string): Promise<request.Response> {
     return this.post('/api/auth/login', { email, password });
   }

@@ -1,3 +1,4 @@
+import { randomBytes } from 'node:crypto';
 import type { Express } from 'express';
 import { createApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/core/config';
@@ -29,8 +30,11 @@ export interface TestApp {
 /** The real API on its own cloned database, with the real queue; mail goes to the SMTP fake. */
 export async function startTestApp(env: Record<string, string> = {}): Promise<TestApp> {
   const database = await createTestDatabase();
+  // Each test app gets its own bucket: ids restart in every cloned database, so object keys would collide.
+  const bucket = `tw-test-${randomBytes(5).toString('hex')}`;
   const config = loadConfig({
     ...process.env,
+    S3_BUCKET: bucket,
     NODE_ENV: 'test',
     LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'silent',
     DATABASE_URL: database.url,
@@ -43,6 +47,7 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
   await jobs.start();
   const clock = { offsetMs: 0 };
   const storage = createObjectStorage(config);
+  if (config.s3.endpoint) await storage.ensureBucket();
   const ctx: AppContext = { config, db: database.handle.db, logger, jobs, storage, now: () => new Date(Date.now() + clock.offsetMs) };
   const app = createApp(ctx, database.handle.pool);
   let workerQueue: JobQueue | undefined;
