@@ -88,7 +88,10 @@ function multerToAppError(app: AppContext, error: unknown): unknown {
     return validationFailed(`The upload could not be read (${error.code}).`);
   }
   const message = (error as Error)?.message ?? '';
-  if (/Unexpected end of form|Malformed part header|Multipart: Boundary not found|Unsupported content type/i.test(message)) {
+  if (/Malformed part header/i.test(message)) {
+    return new AppError(400, 'bad_request', "The upload's form data could not be read: a file name may hold control characters. Rename the file and upload it again.");
+  }
+  if (/Unexpected end of form|Multipart: Boundary not found|Unsupported content type/i.test(message)) {
     return new AppError(400, 'bad_request', 'The upload was cut off or is not multipart/form-data with files in the field "files".');
   }
   if ((error as { code?: string })?.code === 'LIMIT_FILE_SIZE') return multerToAppError(app, new multer.MulterError('LIMIT_FILE_SIZE'));
