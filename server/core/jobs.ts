@@ -51,10 +51,12 @@ export const JOB_POLICIES: { readonly [N in JobName]: JobPolicy } = {
 
 /**
  * The policies with media job leases sized from the configured ffmpeg time limit: each clip job runs
- * up to four ffmpeg steps, so its lease is four limits plus a margin.
+ * up to four ffmpeg steps, so its lease is four limits plus a margin (at most 30 s). A job whose
+ * worker died is handed out again once its lease has run out.
  */
 export function jobPolicies(mediaTimeoutMs: number): { readonly [N in JobName]: JobPolicy } {
-  const lease = Math.ceil((4 * mediaTimeoutMs) / 1000) + 30;
+  const limit = Math.ceil(mediaTimeoutMs / 1000);
+  const lease = 4 * limit + Math.min(30, limit);
   return {
     ...JOB_POLICIES,
     'clip.process': { ...JOB_POLICIES['clip.process'], expireInSeconds: lease },
