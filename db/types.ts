@@ -21,6 +21,7 @@ export interface UsersTable {
 export interface TeamsTable {
   id: Generated<number>;
   name: string;
+  share_grades_with_players: Generated<boolean>;
   created_at: Timestamp;
 }
 
@@ -115,6 +116,7 @@ export interface FilmSessionsTable {
   home_away: string | null;
   week: number | null;
   periods: ColumnType<string[], string[] | undefined, string[]>;
+  grading_locked: Generated<boolean>;
   created_by: number | null;
   created_at: Timestamp;
 }
@@ -186,7 +188,87 @@ export interface ClipsTable {
   updated_at: Timestamp;
 }
 
+export interface GradingSchemesTable {
+  id: Generated<number>;
+  team_id: number;
+  version: number;
+  rules: ColumnType<unknown, string, string>;
+  designated_grader_role: Generated<string>;
+  created_by: number | null;
+  created_at: Timestamp;
+}
+
+export interface DepthChartEntriesTable {
+  season_id: number;
+  position: string;
+  rank: number;
+  player_id: number;
+}
+
+export interface DepthChartChangesTable {
+  id: Generated<number>;
+  season_id: number;
+  changed_by: number | null;
+  reason: string | null;
+  before: ColumnType<unknown, string, string>;
+  after: ColumnType<unknown, string, string>;
+  created_at: Timestamp;
+}
+
+export interface SnapParticipantsTable {
+  snap_id: number;
+  player_id: number;
+  position: string;
+}
+
+export interface GradesTable {
+  id: Generated<number>;
+  snap_id: number;
+  player_id: number;
+  grader_id: number;
+  scheme_version: number;
+  position: string | null;
+  assignment: string | null;
+  missed_reason: string | null;
+  footwork: string | null;
+  hands: string | null;
+  pad_level: string | null;
+  extra: ColumnType<Record<string, string | null>, string | undefined, string>;
+  effort: string | null;
+  knockdowns: Generated<number>;
+  pressures_allowed: Generated<number>;
+  sacks_allowed: Generated<number>;
+  penalties: ColumnType<{ type: string }[], string | undefined, string>;
+  penalty_count: Generated<number>;
+  note: string | null;
+  result: string | null;
+  version: Generated<number>;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+}
+
+/** The final grade per snap and player (view; see the grading migration). */
+export interface FinalGradesView extends GradesTable {
+  session_id: number;
+}
+
+export interface GradingLockEventsTable {
+  id: Generated<number>;
+  session_id: number;
+  action: string;
+  by_user: number | null;
+  reason: string | null;
+  created_at: Timestamp;
+}
+
 export interface DB {
+  grading_schemes: GradingSchemesTable;
+  depth_chart_entries: DepthChartEntriesTable;
+  depth_chart_changes: DepthChartChangesTable;
+  snap_participants: SnapParticipantsTable;
+  grades: GradesTable;
+  final_grades: FinalGradesView;
+  grading_lock_events: GradingLockEventsTable;
   tag_list_items: TagListItemsTable;
   film_sessions: FilmSessionsTable;
   snaps: SnapsTable;

@@ -1,6 +1,7 @@
 import { authRoutes } from './auth/auth.routes';
 import { devRoutes } from './dev/dev.routes';
 import { filmRoutes } from './film/film.routes';
+import { gradingRoutes } from './grading/grading.routes';
 import { healthRoutes } from './health/health.routes';
 import { rosterRoutes } from './roster/roster.routes';
 import { staffRoutes } from './staff/staff.routes';
@@ -18,6 +19,7 @@ export function allRoutes(deps: AuthDeps & { version: string; startedAt: number 
     ...rosterRoutes(),
     ...staffRoutes(),
     ...filmRoutes(),
+    ...gradingRoutes(),
     ...devRoutes(),
   ];
 }

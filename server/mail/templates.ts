@@ -46,3 +46,14 @@ export function passwordResetMail(args: { to: string; name: string; link: string
     purpose: 'password_reset',
   };
 }
+
+export function gradeSheetMail(args: { to: string; playerName: string; sessionTitle: string; lines: string[]; link: string }): MailMessage {
+  const intro = `Hi ${args.playerName}, here is your grade sheet for ${args.sessionTitle}.`;
+  return {
+    to: args.to,
+    subject: `Your grade sheet: ${args.sessionTitle}`,
+    text: `${intro}\n\n${args.lines.join('\n')}\n\nWatch your clips and your coach's points: ${args.link}\n`,
+    html: layout([intro, ...args.lines], { href: args.link, label: 'Open Trenchwork' }),
+    purpose: 'grade_sheet',
+  };
+}

@@ -18,6 +18,7 @@ const STAFF: readonly Role[] = ['admin', 'coordinator', 'coach', 'analyst'];
 const EDITORS: readonly Role[] = ['admin', 'coordinator'];
 const ADMIN: readonly Role[] = ['admin'];
 const LIST_EDITORS: readonly Role[] = ['admin', 'coordinator', 'analyst'];
+const GRADERS: readonly Role[] = ['admin', 'coordinator', 'coach'];
 
 const EXPECTED: Record<string, Rule> = {
   health: 'public',
@@ -66,6 +67,20 @@ const EXPECTED: Record<string, Rule> = {
   listTagLists: STAFF,
   addTagListItem: LIST_EDITORS,
   updateTagListItem: LIST_EDITORS,
+  saveGrade: GRADERS,
+  listSnapGrades: GRADERS,
+  setSnapParticipants: GRADERS,
+  gradingDesk: GRADERS,
+  gradingProgress: STAFF,
+  setGradingLock: EDITORS,
+  gradeSheet: ROLES,
+  gradeSheetCsv: STAFF,
+  mailGradeSheet: GRADERS,
+  getGradingScheme: STAFF,
+  saveGradingScheme: EDITORS,
+  getDepthChart: STAFF,
+  saveDepthChart: EDITORS,
+  depthChartHistory: STAFF,
 };
 
 /** Requests that name their team outside the path carry it, so a stranger is refused for the team, not the form. */
@@ -151,6 +166,7 @@ function concretePath(path: string): string {
   const idFor = path.startsWith('/api/film-sessions/') ? film.sessionId : path.startsWith('/api/snaps/') ? film.snapId : film.clipId;
   const values: Record<string, string> = {
     id: String(idFor),
+    snapId: String(film.snapId),
     itemId: String(film.tagItemId),
     teamId: String(team.teamId),
     playerId: String(team.playerIds[0]),

@@ -330,7 +330,8 @@ describe('cutSegment', () => {
         const path = out(`snap-${mode}-${i}.mp4`);
         expect(await media.cutSegment(tape.path, path, { startSeconds: start, endSeconds: end, mode })).toEqual({ mode });
         const d = await durations(path);
-        expect({ mode, i, ok: Math.abs(d.video - (end - start)) <= frame + 1e-6 && Math.abs(d.format - (end - start)) <= frame + 1e-6 }).toEqual({ mode, i, ok: true });
+        const ok = Math.abs(d.video - (end - start)) <= frame + 1e-6 && Math.abs(d.format - (end - start)) <= frame + 1e-6;
+        expect({ mode, i, start, end, ...d, ok }).toMatchObject({ mode, i, ok: true });
         expect(Math.abs(d.frames - Math.round((end - start) * tape.fps))).toBeLessThanOrEqual(1);
       }
     }
@@ -459,6 +460,24 @@ describe('time limit', () => {
 
   it('applies to ffprobe too', async () => {
     await expect(media.probeMedia(basic, { timeoutMs: 1 })).rejects.toMatchObject({ code: 'timeout', reason: 'processing took longer than 1 ms' });
+  });
+});
+
+describe('missing tools', () => {
+  it('says the tools are missing, and that another attempt may help', async () => {
+    const info = await media.probeMedia(basic);
+    media.setFfprobePath('/nonexistent/ffprobe');
+    try {
+      await expect(media.probeMedia(basic)).rejects.toMatchObject({ code: 'tool_missing', permanent: false });
+    } finally {
+      media.setFfprobePath(FFPROBE);
+    }
+    media.setFfmpegPath('/nonexistent/ffmpeg');
+    try {
+      await expect(media.makePoster(basic, out('poster-no-tool.jpg'), { info })).rejects.toMatchObject({ code: 'tool_missing', permanent: false });
+    } finally {
+      media.setFfmpegPath(FFMPEG);
+    }
   });
 });
 

@@ -1,0 +1,269 @@
+import { createTeamFixture, TEST_PASSWORD, type TeamFixture } from '../support/fixtures';
+import { waitForMail } from '../support/mailbox';
+import { startTestApp, type TestApp } from '../support/test-app';
+import type { ApiClient } from '../support/api-client';
+
+/**
+ * Grading through the API on a real database: the PUT contract with versions, concurrent saves,
+ * the final-grade rule, hand-worked grade sheets, locks, scheme versions, and who may do what.
+ */
+let t: TestApp;
+let team: TeamFixture;
+let coach: ApiClient;
+let coordinator: ApiClient;
+let sessionId: number;
+let snapIds: number[];
+let LT: number;
+let LG: number;
+let C: number;
+
+async function signedIn(email: string): Promise<ApiClient> {
+  const client = t.client();
+  expect((await client.login(email, TEST_PASSWORD)).status).toBe(200);
+  return client;
+}
+
+beforeAll(async () => {
+  t = await startTestApp();
+  await t.startWorker();
+  team = await createTeamFixture(t.ctx.db, 'Grades');
+  [LT, LG, C] = team.playerIds as [number, number, number];
+  coach = await signedIn(team.accounts.coach.email);
+  coordinator = await signedIn(team.accounts.coordinator.email);
+  const session = await t.ctx.db
+    .insertInto('film_sessions')
+    .values({ team_id: team.teamId, season_id: team.seasonId, kind: 'game', title: 'Week 4 vs Marrow Flats', date: '2026-09-25', opponent: 'Marrow Flats' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  sessionId = session.id;
+  snapIds = [];
+  for (let order = 1; order <= 4; order += 1) snapIds.push((await t.ctx.db.insertInto('snaps').values({ session_id: sessionId, order }).returning('id').executeTakeFirstOrThrow()).id);
+  // The depth chart's starters fill the desk: LT, LG and C here.
+  const chart = await coordinator.put(`/api/teams/${team.teamId}/depth-chart`, { positions: { LT: [LT], LG: [LG], C: [C] }, reason: 'opening week' });
+  expect(chart.status).toBe(200);
+}, 60_000);
+
+afterAll(async () => {
+  await t?.close();
+});
+
+const allPlus = { assignment: 'right', footwork: 'plus', hands: 'plus', padLevel: 'plus', effort: 'plus' };
+const put = (client: ApiClient, snap: number, player: number, body: object) => client.put(`/api/snaps/${snap}/grades/${player}`, body);
+
+describe('PUT /api/snaps/{snapId}/grades/{playerId}', () => {
+  test('a new grade is version 1 with its result; an edit from that version makes version 2', async () => {
+    const first = await put(coach, snapIds[0]!, LT, { ...allPlus, knockdowns: 1 });
+    expect(first.status).toBe(200);
+    expect(first.body).toMatchObject({ snapId: snapIds[0], playerId: LT, graderId: team.accounts.coach.userId, version: 1, result: 'plus', knockdowns: 1, schemeVersion: 1 });
+    const edit = await put(coach, snapIds[0]!, LT, { ...allPlus, hands: 'minus', knockdowns: 1, version: 1 });
+    expect(edit.status).toBe(200);
+    expect(edit.body).toMatchObject({ version: 2, result: 'minus', hands: 'minus' });
+  });
+
+  test('a stale version gets 409 with the current grade, and nothing is overwritten', async () => {
+    const stale = await put(coach, snapIds[0]!, LT, { ...allPlus, version: 1 });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.code).toBe('stale_version');
+    expect(stale.body.error.current).toMatchObject({ version: 2, hands: 'minus' });
+    const again = await put(coach, snapIds[0]!, LT, { ...allPlus });
+    expect(again.status).toBe(409);
+  });
+
+  test('two sessions of the same coach saving the same cell from one version: one wins, the other gets 409', async () => {
+    const laptop = await signedIn(team.accounts.coach.email);
+    const tablet = await signedIn(team.accounts.coach.email);
+    const base = await put(laptop, snapIds[1]!, LG, allPlus);
+    expect(base.body.version).toBe(1);
+    const P = 8;
+    const results = await Promise.all(Array.from({ length: P }, (_, i) => put(i % 2 ? tablet : laptop, snapIds[1]!, LG, { ...allPlus, knockdowns: i, version: 1 })));
+    const statuses = results.map((r) => r.status).sort();
+    expect(statuses).toEqual([200, ...Array(P - 1).fill(409)]);
+    const winner = results.find((r) => r.status === 200)!;
+    const stored = await t.ctx.db.selectFrom('grades').select(['version', 'knockdowns']).where('snap_id', '=', snapIds[1]!).where('player_id', '=', LG).executeTakeFirstOrThrow();
+    expect(stored).toEqual({ version: 2, knockdowns: winner.body.knockdowns });
+  });
+
+  test('bad marks get field errors: a reason without a miss, an unknown penalty, a negative count', async () => {
+    const res = await put(coach, snapIds[2]!, C, { assignment: 'right', missedReason: 'communication', penalties: [{ type: 'juggling' }], knockdowns: -1 });
+    expect(res.status).toBe(422);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual(['knockdowns']);
+    const res2 = await put(coach, snapIds[2]!, C, { assignment: 'right', missedReason: 'communication', penalties: [{ type: 'juggling' }] });
+    expect(res2.status).toBe(422);
+    expect(Object.keys(res2.body.error.fields).sort()).toEqual(['missedReason', 'penalties']);
+  });
+
+  test('analysts and players cannot write grades', async () => {
+    const analyst = await signedIn(team.accounts.analyst.email);
+    const player = await signedIn(team.accounts.player.email);
+    expect((await put(analyst, snapIds[3]!, C, allPlus)).status).toBe(403);
+    expect((await put(player, snapIds[3]!, LG, allPlus)).status).toBe(403);
+  });
+});
+
+describe('the grade sheet from hand-worked grades', () => {
+  let sheetSession: number;
+  let snaps: number[];
+
+  beforeAll(async () => {
+    const session = await t.ctx.db
+      .insertInto('film_sessions')
+      .values({ team_id: team.teamId, season_id: team.seasonId, kind: 'game', title: 'Week 5', date: '2026-10-02', opponent: 'Quarry Point' })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    sheetSession = session.id;
+    snaps = [];
+    for (let order = 1; order <= 4; order += 1) snaps.push((await t.ctx.db.insertInto('snaps').values({ session_id: sheetSession, order }).returning('id').executeTakeFirstOrThrow()).id);
+    // The coach's grades of LT on four snaps:
+    //   1: all plus                                  → plus
+    //   2: hands minus, 1 knockdown                   → minus
+    //   3: missed (wrong call), footwork not graded   → minus
+    //   4: all plus, effort loaf, 1 pressure allowed  → minus (a loaf is never plus)
+    await put(coach, snaps[0]!, LT, allPlus);
+    await put(coach, snaps[1]!, LT, { ...allPlus, hands: 'minus', knockdowns: 1 });
+    await put(coach, snaps[2]!, LT, { assignment: 'missed', missedReason: 'wrong call', hands: 'plus', padLevel: 'minus', effort: 'plus', note: 'Check the call with the center.' });
+    await put(coach, snaps[3]!, LT, { ...allPlus, effort: 'loaf', pressuresAllowed: 1, penalties: [{ type: 'holding' }] });
+    // LG graded plus by the coach on snap 1, minus by the coordinator (the designated grader): the
+    // coordinator's grade is final. On snap 2 only the coach graded LG plus: his grade is final.
+    await put(coach, snaps[0]!, LG, allPlus);
+    await put(coordinator, snaps[0]!, LG, { ...allPlus, padLevel: 'minus' });
+    await put(coach, snaps[1]!, LG, { ...allPlus, sacksAllowed: 0 });
+    // C: all plus on snaps 1 and 2 (so snap 1 is minus for the unit through LG, snap 2 through LT).
+    await put(coach, snaps[0]!, C, allPlus);
+    await put(coach, snaps[1]!, C, allPlus);
+  });
+
+  test('per player: snaps, plus, rates per component, counts, reasons and notes', async () => {
+    const res = await coach.get(`/api/film-sessions/${sheetSession}/grade-sheet`);
+    expect(res.status).toBe(200);
+    const lt = res.body.players.find((p: { playerId: number }) => p.playerId === LT);
+    // 4 graded snaps, 1 plus → 0.25. Assignment right 3, missed 1 → 0.75. Footwork plus on 1, 2, 4 and not
+    // graded on 3 → 3/3. Hands plus 1, 3, 4, minus 2 → 3/4. Pad level plus 1, 2, 4, minus 3 → 3/4.
+    // Effort plus 1, 2, 3, loaf 4 → 3/4.
+    expect(lt).toMatchObject({
+      snaps: 4,
+      plus: 1,
+      plusRate: 0.25,
+      meetsWinningGrade: false,
+      components: {
+        assignment: { plus: 3, minus: 1, rate: 0.75 },
+        footwork: { plus: 3, minus: 0, rate: 1 },
+        hands: { plus: 3, minus: 1, rate: 0.75 },
+        padLevel: { plus: 3, minus: 1, rate: 0.75 },
+        effort: { plus: 3, minus: 1, rate: 0.75 },
+      },
+      missedAssignments: 1,
+      missedByReason: { 'wrong call': 1 },
+      knockdowns: 1,
+      pressuresAllowed: 1,
+      sacksAllowed: 0,
+      penalties: 1,
+      penaltiesByType: { holding: 1 },
+      notes: [{ snapOrder: 3, note: 'Check the call with the center.' }],
+    });
+    const lg = res.body.players.find((p: { playerId: number }) => p.playerId === LG);
+    // Snap 1: the coordinator's minus is final; snap 2: the coach's plus. 2 snaps, 1 plus.
+    expect(lg).toMatchObject({ snaps: 2, plus: 1, plusRate: 0.5, components: { padLevel: { plus: 1, minus: 1, rate: 0.5 } } });
+    const c = res.body.players.find((p: { playerId: number }) => p.playerId === C);
+    expect(c).toMatchObject({ snaps: 2, plus: 2, plusRate: 1, meetsWinningGrade: true });
+  });
+
+  test('the unit view: a snap is all-plus only when every lineman on the field graded plus', async () => {
+    const res = await coach.get(`/api/film-sessions/${sheetSession}/grade-sheet`);
+    const unit = res.body.unit;
+    // Snap 1: LG minus (final). Snap 2: LT minus. Snaps 3, 4: only LT graded (C and LG not graded) → not all-plus.
+    expect(unit.bySnap.map((s: { order: number; allPlus: boolean }) => [s.order, s.allPlus])).toEqual([[1, false], [2, false], [3, false], [4, false]]);
+    expect(unit.bySnap[0].minusPlayerIds).toEqual([LG]);
+    expect(unit).toMatchObject({ snaps: 4, allPlus: 0, rate: 0 });
+  });
+
+  test('a player reads only his own row; with sharing off, nothing', async () => {
+    const player = await signedIn(team.accounts.player.email);
+    const own = await player.get(`/api/film-sessions/${sheetSession}/grade-sheet`);
+    expect(own.status).toBe(200);
+    expect(own.body.players.map((p: { playerId: number }) => p.playerId)).toEqual([team.ownPlayerId]);
+    expect(own.body.unit.bySnap).toEqual([]);
+    await t.ctx.db.updateTable('teams').set({ share_grades_with_players: false }).where('id', '=', team.teamId).execute();
+    expect((await player.get(`/api/film-sessions/${sheetSession}/grade-sheet`)).status).toBe(403);
+    await t.ctx.db.updateTable('teams').set({ share_grades_with_players: true }).where('id', '=', team.teamId).execute();
+  });
+
+  test('CSV export with our columns, and the sheet mailed to the player', async () => {
+    const csv = (await coach.agent.get(`/api/film-sessions/${sheetSession}/grade-sheet.csv`)).text;
+    const [header, ...rows] = csv.trim().split('\n');
+    expect(header).toBe('jersey,player,snaps,plus,plus_pct,winning_grade,assignment_pct,footwork_pct,hands_pct,padLevel_pct,effort_pct,missed_assignments,knockdowns,pressures_allowed,sacks_allowed,penalties');
+    expect(rows.find((r) => r.includes('Avery Lintel'))).toBe('70,Avery Lintel,4,1,25.0,not met,75.0,100.0,75.0,75.0,75.0,1,1,1,0,1');
+    const mailed = await coach.post(`/api/film-sessions/${sheetSession}/grade-sheet/mail`, { playerId: team.ownPlayerId });
+    expect(mailed.status).toBe(202);
+    const mail = await waitForMail(team.accounts.player.email, /grade sheet/);
+    expect(mail.text).toContain('Snaps graded: 2. Plus: 1 (50 %');
+    const noAccount = await coach.post(`/api/film-sessions/${sheetSession}/grade-sheet/mail`, { playerId: LT });
+    expect(noAccount.status).toBe(409);
+  });
+});
+
+describe('progress, locks and scheme versions', () => {
+  test('progress counts cells per grader against linemen on the field; lock stops saves; unlock needs a reason', async () => {
+    const progress = await coordinator.get(`/api/film-sessions/${sessionId}/grading-progress`);
+    expect(progress.status).toBe(200);
+    // 4 snaps × 3 starters = 12 expected cells.
+    expect(progress.body.expectedCells).toBe(12);
+    expect(progress.body.graders.find((g: { graderId: number }) => g.graderId === team.accounts.coach.userId).gradedCells).toBe(2);
+    const lock = await coordinator.post(`/api/film-sessions/${sessionId}/grading-lock`, { locked: true });
+    expect(lock.body.locked).toBe(true);
+    const blocked = await put(coach, snapIds[3]!, C, allPlus);
+    expect(blocked.status).toBe(409);
+    expect(blocked.body.error.message).toMatch(/locked/);
+    expect((await coach.post(`/api/film-sessions/${sessionId}/grading-lock`, { locked: false, reason: 'x' })).status).toBe(403);
+    expect((await coordinator.post(`/api/film-sessions/${sessionId}/grading-lock`, { locked: false })).status).toBe(422);
+    const unlock = await coordinator.post(`/api/film-sessions/${sessionId}/grading-lock`, { locked: false, reason: 'Regrade snap 4 after the film review' });
+    expect(unlock.body.locked).toBe(false);
+    expect(unlock.body.lockHistory.map((h: { action: string; reason: string | null }) => [h.action, h.reason])).toEqual([
+      ['unlocked', 'Regrade snap 4 after the film review'],
+      ['locked', null],
+    ]);
+    expect((await put(coach, snapIds[3]!, C, allPlus)).status).toBe(200);
+  });
+
+  test('a new scheme version: old grades keep their result, new ones use the new rule; extra components need the scheme', async () => {
+    const before = (await t.ctx.db.selectFrom('grades').select(['id', 'result', 'scheme_version']).orderBy('id').execute()).map((g) => ({ ...g }));
+    const scheme = (await coordinator.get(`/api/teams/${team.teamId}/grading-scheme`)).body;
+    const saved = await coordinator.put(`/api/teams/${team.teamId}/grading-scheme`, {
+      extraComponents: [{ key: 'finish', label: 'Finish', active: true }],
+      missedReasons: scheme.missedReasons,
+      penaltyTypes: scheme.penaltyTypes,
+      resultRule: { kind: 'points', weights: { assignment: 2, footwork: 1, hands: 1, padLevel: 1, effort: 1 }, missedPenalty: 3, passPoints: 4 },
+      winningThreshold: 0.85,
+      designatedGraderRole: 'coordinator',
+    });
+    expect(saved.status).toBe(200);
+    expect(saved.body.version).toBe(2);
+    const after = await t.ctx.db.selectFrom('grades').select(['id', 'result', 'scheme_version']).orderBy('id').execute();
+    expect(after).toEqual(before);
+    // Under the points rule hands − alone still passes (2 + 1 − 1 + 1 + 1 = 4).
+    const graded = await put(coach, snapIds[2]!, LT, { ...allPlus, hands: 'minus', extra: { finish: 'plus' } });
+    expect(graded.status).toBe(200);
+    expect(graded.body).toMatchObject({ result: 'plus', schemeVersion: 2, extra: { finish: 'plus' } });
+    const unknown = await put(coach, snapIds[2]!, LG, { ...allPlus, extra: { eyes: 'plus' } });
+    expect(unknown.status).toBe(422);
+    expect(unknown.body.error.fields).toHaveProperty('extra');
+  });
+
+  test('the desk lists starters from the depth chart until a snap records its own linemen', async () => {
+    const desk = await coach.get(`/api/film-sessions/${sessionId}/desk`);
+    expect(desk.status).toBe(200);
+    expect(desk.body.snaps[0].participants).toEqual([
+      { playerId: LT, position: 'LT' },
+      { playerId: LG, position: 'LG' },
+      { playerId: C, position: 'C' },
+    ]);
+    expect(desk.body.snaps[0].participantsFromDepthChart).toBe(true);
+    expect(desk.body.snaps[0].myGrades.map((g: { playerId: number }) => g.playerId)).toEqual([LT]);
+    const heavy = await coach.put(`/api/snaps/${snapIds[1]}/participants`, { participants: [{ playerId: LT, position: 'LT' }, { playerId: C, position: 'C' }, { playerId: LG, position: 'TE' }] });
+    expect(heavy.status).toBe(200);
+    const again = await coach.get(`/api/film-sessions/${sessionId}/desk`);
+    expect(again.body.snaps[1]).toMatchObject({ participantsFromDepthChart: false });
+    expect(again.body.snaps[1].participants).toHaveLength(3);
+    const history = await coordinator.get(`/api/teams/${team.teamId}/depth-chart/history`);
+    expect(history.body.changes[0]).toMatchObject({ reason: 'opening week', by: expect.stringContaining('coordinator') });
+  });
+});
