@@ -24,6 +24,7 @@ import { saveGrade } from './grades.service';
 import { gradingProgress, setGradingLock } from './progress.service';
 import { getScheme, saveScheme } from './scheme.service';
 import { mailGradeSheet } from './sheet-mail.service';
+import { practiceReps } from './reps.service';
 
 const graders = GRADING_ROLES;
 const leads: readonly Role[] = ['admin', 'coordinator'];
@@ -139,6 +140,18 @@ export function gradingRoutes(): RouteDefinition[] {
         await mailGradeSheet(app, params.id, body.playerId, membership!);
         return new Reply(202, {});
       },
+    }),
+    defineRoute({
+      operationId: 'practiceReps',
+      method: 'get',
+      path: '/teams/{teamId}/reps',
+      summary: "Graded practice reps per player in a season, by practice period, concept and front.",
+      tags: ['grading'],
+      access: { kind: 'team', roles: STAFF_ROLES, team: teamFromPath },
+      params: teamParams,
+      query: z.object({ seasonId: idSchema.optional() }),
+      responses: { 200: { description: 'Rep counts' } },
+      handler: async ({ app, params, query }) => practiceReps(app, params.teamId, query.seasonId),
     }),
     defineRoute({
       operationId: 'getGradingScheme',

@@ -81,6 +81,7 @@ const EXPECTED: Record<string, Rule> = {
   getDepthChart: STAFF,
   saveDepthChart: EDITORS,
   depthChartHistory: STAFF,
+  practiceReps: STAFF,
 };
 
 /** Requests that name their team outside the path carry it, so a stranger is refused for the team, not the form. */

@@ -267,3 +267,43 @@ describe('progress, locks and scheme versions', () => {
     expect(history.body.changes[0]).toMatchObject({ reason: 'opening week', by: expect.stringContaining('coordinator') });
   });
 });
+
+describe('practice reps', () => {
+  test('graded practice reps per player by period, concept and front', async () => {
+    const practice = await t.ctx.db
+      .insertInto('film_sessions')
+      .values({ team_id: team.teamId, season_id: team.seasonId, kind: 'practice', title: 'Tuesday', date: '2026-09-29', periods: ['inside run', 'team run'] })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const item = async (kind: string, name: string) =>
+      (await t.ctx.db.insertInto('tag_list_items').values({ team_id: team.teamId, kind, name }).onConflict((oc) => oc.doNothing()).returning('id').executeTakeFirst())?.id ??
+      (await t.ctx.db.selectFrom('tag_list_items').select('id').where('team_id', '=', team.teamId).where('kind', '=', kind).where('name', '=', name).executeTakeFirstOrThrow()).id;
+    const power = await item('concept', 'power');
+    const zone = await item('concept', 'inside zone');
+    const bear = await item('front', 'bear');
+    // Three reps for LT: inside run / power / bear (plus), inside run / power / bear (minus), team run / inside zone / no front (plus).
+    const reps = [
+      { period: 'inside run', concept_id: power, front_id: bear, body: allPlus },
+      { period: 'inside run', concept_id: power, front_id: bear, body: { ...allPlus, assignment: 'missed' } },
+      { period: 'team run', concept_id: zone, front_id: null, body: allPlus },
+    ];
+    for (const [i, rep] of reps.entries()) {
+      const snap = await t.ctx.db.insertInto('snaps').values({ session_id: practice.id, order: i + 1, period: rep.period, concept_id: rep.concept_id, front_id: rep.front_id }).returning('id').executeTakeFirstOrThrow();
+      expect((await put(coach, snap.id, LT, rep.body)).status).toBe(200);
+    }
+    const res = await coach.get(`/api/teams/${team.teamId}/reps`);
+    expect(res.status).toBe(200);
+    const lt = res.body.players.find((p: { playerId: number }) => p.playerId === LT);
+    expect(lt).toEqual({
+      playerId: LT,
+      name: 'Avery Lintel',
+      total: 3,
+      plus: 2,
+      byPeriod: { 'inside run': 2, 'team run': 1 },
+      byConcept: { power: 2, 'inside zone': 1 },
+      byFront: { bear: 2, untagged: 1 },
+    });
+    // Game snaps are not practice reps.
+    expect(res.body.players.find((p: { playerId: number }) => p.playerId === C)).toBeUndefined();
+  });
+});

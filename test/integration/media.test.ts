@@ -358,6 +358,14 @@ describe('cutSegment', () => {
     expect(media.chooseCutMode(tapeWithoutKeys.cuts, media.keyframeTimes(packets), tapeWithoutKeys.fps)).toBe('encode');
     expect(media.chooseCutMode(tape.cuts, media.keyframeTimes(await media.readVideoPackets(tape.path)), tape.fps)).toBe('copy');
   });
+
+  it('auto encodes a source a browser cannot play as it is, into the web format', async () => {
+    expect(await media.cutSegment(mpeg4, out('cut-mpeg4.mp4'), { startSeconds: 0, endSeconds: 1 })).toEqual({ mode: 'encode' });
+    expect(await media.cutSegment(awkward.uhd, out('cut-uhd.mp4'), { startSeconds: 0, endSeconds: 0.3 })).toEqual({ mode: 'encode' });
+    const video = (await ffprobeJson(out('cut-uhd.mp4'))).streams.find((s: any) => s.codec_type === 'video');
+    expect(video).toMatchObject({ codec_name: 'h264', pix_fmt: 'yuv420p', width: 1280, height: 720, nb_frames: '3' });
+    expect((await ffprobeJson(out('cut-mpeg4.mp4'))).streams[0]).toMatchObject({ codec_name: 'h264', nb_frames: '30' });
+  });
 });
 
 describe('bad uploads', () => {
