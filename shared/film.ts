@@ -58,3 +58,6 @@ export function formatClock(ms: number): string {
   const tenths = totalTenths % 10;
   return `${minutes}:${String(seconds).padStart(2, '0')}.${tenths}`;
 }
+
+/** The shortest snap the Cut Planner accepts between two cuts: half a second (a snap lasts several). */
+export const MIN_SEGMENT_MS = 500;

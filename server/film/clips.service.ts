@@ -12,7 +12,7 @@ import { mediaUrl, type MediaVariant } from './media-urls';
 import { batchPlayNumbers, planPlacements } from './snap-numbering';
 import { ObjectStorageEngine, type StoredUpload } from './upload-engine';
 
-export function toClip(row: ClipRow): Clip {
+export function toClip(row: ClipRow, splitTapeIds: ReadonlySet<number> = new Set()): Clip {
   const ready = row.status === 'ready';
   return {
     id: row.id,
@@ -34,6 +34,8 @@ export function toClip(row: ClipRow): Clip {
     stripUrl: row.strip_key ? mediaUrl(row.id, 'strip') : null,
     strip: row.strip,
     proposedCutsMs: row.proposed_cuts,
+    canRetry: row.status === 'failed' && row.original_key !== null,
+    splitDone: splitTapeIds.has(row.id),
     createdAt: row.created_at.toISOString(),
   };
 }
@@ -41,11 +43,14 @@ export function toClip(row: ClipRow): Clip {
 export async function getClip(app: AppContext, clipId: number): Promise<Clip> {
   const row = await findClip(app.db, clipId);
   if (!row) throw notFound('That clip');
-  return toClip(row);
+  const child = row.kind === 'tape' ? await app.db.selectFrom('clips').select('id').where('source_clip_id', '=', clipId).limit(1).executeTakeFirst() : undefined;
+  return toClip(row, new Set(child ? [clipId] : []));
 }
 
 export async function listClips(app: AppContext, sessionId: number): Promise<Clip[]> {
-  return (await listSessionClips(app.db, sessionId)).map(toClip);
+  const rows = await listSessionClips(app.db, sessionId);
+  const split = new Set(rows.flatMap((r) => (r.source_clip_id !== null ? [r.source_clip_id] : [])));
+  return rows.map((r) => toClip(r, split));
 }
 
 type UploadedFile = Express.Multer.File & { upload?: StoredUpload };

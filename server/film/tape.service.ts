@@ -1,11 +1,10 @@
 import type { Clip } from '@shared/api/film';
+import { MIN_SEGMENT_MS } from '@shared/film';
 import type { AppContext } from '../core/context';
 import { conflict, notFound, validationFailed } from '../core/errors';
 import { findClip } from './film.repository';
 import { getClip } from './clips.service';
 
-/** The shortest snap the Cut Planner accepts between two cuts (a snap is several seconds; common practice). */
-export const MIN_SEGMENT_MS = 500;
 
 async function readyTape(app: AppContext, clipId: number) {
   const tape = await findClip(app.db, clipId);

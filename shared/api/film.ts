@@ -73,6 +73,10 @@ export const clipSchema = z.object({
   stripUrl: z.string().nullable(),
   strip: stripLayoutSchema.nullable(),
   proposedCutsMs: z.array(z.number()).nullable(),
+  /** A failed clip whose file was stored can be processed again (a file refused on upload cannot). */
+  canRetry: z.boolean(),
+  /** A tape already cut into snap clips. */
+  splitDone: z.boolean(),
   createdAt: z.string(),
 });
 export type Clip = z.infer<typeof clipSchema>;

@@ -46,6 +46,11 @@ export const routes: Routes = [
         loadComponent: () => import('./features/this-week/this-week-page').then((m) => m.ThisWeekPage),
       },
       {
+        path: 'film',
+        canActivate: [roleGuard(STAFF_ROLES)],
+        loadChildren: () => import('./features/film-library/film.routes').then((m) => m.filmRoutes),
+      },
+      {
         path: 'roster',
         canActivate: [roleGuard(STAFF_ROLES)],
         loadChildren: () => import('./features/roster/roster.routes').then((m) => m.rosterRoutes),

@@ -49,17 +49,17 @@ describe('AppShell navigation', () => {
 
   it('gives an admin both Roster and Staff', async () => {
     const fixture = await render('admin');
-    expect(navLabels(fixture)).toEqual(['This Week', 'Roster', 'Staff']);
+    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Roster', 'Staff']);
   });
 
   it('gives a position coach the Roster but not Staff', async () => {
     const fixture = await render('coach');
-    expect(navLabels(fixture)).toEqual(['This Week', 'Roster']);
+    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Roster']);
   });
 
   it('adds the dev mailbox only when the API answers for it', async () => {
     const fixture = await render('analyst', 'on');
-    expect(navLabels(fixture)).toEqual(['This Week', 'Roster', 'Dev mailbox']);
+    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Roster', 'Dev mailbox']);
   });
 
   it('follows the role of the team picked in the switcher', async () => {
@@ -67,7 +67,7 @@ describe('AppShell navigation', () => {
     expect(navLabels(fixture)).not.toContain('Roster');
     TestBed.inject(AuthStore).selectTeam(2);
     await fixture.whenStable();
-    expect(navLabels(fixture)).toEqual(['This Week', 'Roster']);
+    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Roster']);
     expect(localStorage.getItem('trenchwork.selectedTeamId')).toBe('2');
     expect((fixture.nativeElement as HTMLElement).querySelector('tw-team-switcher')?.textContent).toContain('Ironvale Anvils JV');
   });

@@ -8,6 +8,7 @@ export interface NavLink {
 
 const LINKS: { link: NavLink; roles: readonly Role[] }[] = [
   { link: { path: '/', label: 'This Week', icon: 'today' }, roles: ['admin', 'coordinator', 'coach', 'analyst', 'player'] },
+  { link: { path: '/film', label: 'Film Library', icon: 'video_library' }, roles: STAFF_ROLES },
   { link: { path: '/roster', label: 'Roster', icon: 'groups' }, roles: STAFF_ROLES },
   { link: { path: '/staff', label: 'Staff', icon: 'badge' }, roles: ['admin'] },
 ];
