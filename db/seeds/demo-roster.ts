@@ -42,3 +42,13 @@ export const DEMO_STAFF = [
 
 /** The demo player account signs in as the starting left guard. */
 export const DEMO_PLAYER = { email: 'player@trenchwork.test', jersey: 66 } as const;
+
+/** The demo depth chart by jersey: starters first, then the next men up (two guards compete at RG). */
+export const DEMO_DEPTH_CHART: Record<string, number[]> = {
+  LT: [72, 74, 71],
+  LG: [66, 61, 63],
+  C: [55, 52, 57],
+  RG: [64, 68, 65],
+  RT: [78, 79, 75],
+  TE: [88, 85, 81],
+};

@@ -1,6 +1,7 @@
 import { createDatabase, type Database } from '../database';
 import { hashPassword } from '../../server/core/password-hashing';
-import { DEMO_PLAYER, DEMO_ROSTER, DEMO_STAFF, DEMO_TEAM_NAME } from './demo-roster';
+import { DEMO_DEPTH_CHART, DEMO_PLAYER, DEMO_ROSTER, DEMO_STAFF, DEMO_TEAM_NAME } from './demo-roster';
+import { generateSeasonFilm, setDepthChart } from './film-and-grades';
 
 /**
  * Seeds the invented demo program when the database has no team yet (`npm run seed`). Demo accounts
@@ -57,6 +58,23 @@ export async function seedDemo(db: Database, password: string): Promise<boolean>
         .executeTakeFirstOrThrow();
       await trx.insertInto('memberships').values({ user_id: user.id, team_id: team.id, role: account.role, player_id: account.playerId }).execute();
     }
+    const chart = Object.fromEntries(Object.entries(DEMO_DEPTH_CHART).map(([position, jerseys]) => [position, jerseys.map((j) => playerIdByJersey.get(j)!)]));
+    await setDepthChart(trx, season.id, chart);
+    const userId = async (email: string) => (await trx.selectFrom('users').select('id').where('email', '=', email).executeTakeFirstOrThrow()).id;
+    // Six graded weeks of the 2026 season so far: games on Fridays from 4 September, two practices a week.
+    await generateSeasonFilm(trx, {
+      teamId: team.id,
+      seasonId: season.id,
+      seasonStart: '2026-09-04',
+      weeks: 6,
+      practicesPerWeek: 2,
+      snapsPerGame: [55, 68],
+      repsPerPractice: 36,
+      coachId: await userId('coach@trenchwork.test'),
+      coordinatorId: await userId('coordinator@trenchwork.test'),
+      coordinatorShare: 0.4,
+      seed: 2026,
+    });
   });
   return true;
 }

@@ -50,13 +50,16 @@ export const JOB_POLICIES: { readonly [N in JobName]: JobPolicy } = {
 };
 
 /**
- * The policies with media job leases sized from the configured ffmpeg time limit: each clip job runs
- * up to four ffmpeg steps, so its lease is four limits plus a margin (at most 30 s). A job whose
- * worker died is handed out again once its lease has run out.
+ * The policies with media job leases sized from the configured ffmpeg time limit, which applies to
+ * each ffmpeg run: a clip job runs up to seven (probe, poster, strip, decode check, rendition, scene
+ * detection, and a second decode to place damage), so its lease is seven limits plus a margin (at
+ * most 30 s). A job whose worker died is handed out again once its lease has run out.
  */
+export const FFMPEG_RUNS_PER_CLIP_JOB = 7;
+
 export function jobPolicies(mediaTimeoutMs: number): { readonly [N in JobName]: JobPolicy } {
   const limit = Math.ceil(mediaTimeoutMs / 1000);
-  const lease = 4 * limit + Math.min(30, limit);
+  const lease = FFMPEG_RUNS_PER_CLIP_JOB * limit + Math.min(30, limit);
   return {
     ...JOB_POLICIES,
     'clip.process': { ...JOB_POLICIES['clip.process'], expireInSeconds: lease },

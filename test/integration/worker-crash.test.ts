@@ -11,7 +11,7 @@ import { startTestApp, type TestApp } from '../support/test-app';
  * A worker process killed with SIGKILL in the middle of a clip: once its lease runs out another
  * worker takes the job, and the clip ends ready exactly once, with one copy of each output.
  */
-const MEDIA_TIMEOUT_SECONDS = 6; // lease = 4 × 6 + 6 = 30 s (server/core/jobs.ts)
+const MEDIA_TIMEOUT_SECONDS = 4; // lease = 7 × 4 + 4 = 32 s (server/core/jobs.ts)
 let t: TestApp;
 let team: TeamFixture;
 let dir: string;

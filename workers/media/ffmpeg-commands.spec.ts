@@ -295,9 +295,11 @@ describe('cuts', () => {
     expect(command.inputs[0]!.options.at(-1)).toBe('3.691667');
     expect(command.outputOptions).toEqual([
       '-t', '1', '-map', '0:v:0', '-map', '0:a:0?', '-sn', '-dn', '-map_metadata', '-1', '-map_chapters', '-1',
+      '-vf', "scale=-2:'trunc(min(ih,720)/2)*2'",
       '-c:v', 'libx264', '-preset', 'veryfast', '-crf', '23', '-pix_fmt', 'yuv420p', '-c:a', 'aac', '-movflags', '+faststart', '-f', 'mp4',
     ]);
     expect(command.durationSeconds).toBe(1);
+    expect(cutCommand({ ...cutBase, startSeconds: 3.7, endSeconds: 4.7, mode: 'encode', maxHeight: 480 }).outputOptions).toContain("scale=-2:'trunc(min(ih,480)/2)*2'");
   });
 
   it('copy: video copied from one read of the file, audio trimmed from another', () => {

@@ -251,6 +251,11 @@ export function renditionPlan(probe: PlanFacts, options: { maxHeight: number }):
 }
 
 const MP4_OUT = ['-movflags', '+faststart', '-f', 'mp4'];
+
+/** Height at most maxHeight (a validated integer), never upscaled, even (yuv420p needs it); -2 keeps the aspect with an even width. */
+function scaleToHeight(maxHeight: number): string {
+  return `scale=-2:'trunc(min(ih,${maxHeight})/2)*2'`;
+}
 const DROP_EXTRAS = ['-sn', '-dn', '-map_metadata', '-1', '-map_chapters', '-1'];
 const ENCODE_VIDEO = ['-c:v', WEB_VIDEO.codec, '-preset', WEB_VIDEO.preset, '-crf', String(WEB_VIDEO.crf), '-pix_fmt', WEB_VIDEO.pixelFormat];
 
@@ -267,8 +272,7 @@ export function renditionCommand(o: RenditionOptions): FfmpegCommand {
   const video =
     o.plan.action === 'remux'
       ? ['-c', 'copy']
-      : // Height at most maxHeight, never upscaled, even (yuv420p needs it); -2 keeps the aspect with an even width.
-        ['-vf', `scale=-2:'trunc(min(ih,${maxHeight})/2)*2'`, ...ENCODE_VIDEO, '-c:a', WEB_VIDEO.audioCodec];
+      : ['-vf', scaleToHeight(maxHeight), ...ENCODE_VIDEO, '-c:a', WEB_VIDEO.audioCodec];
   return {
     globalOptions: globalOptions({ strict: o.strict }),
     inputs: [{ options: inputGuards(o.inputFormat), url: fileUrl(o.input) }],
@@ -403,6 +407,8 @@ export interface CutOptions extends CommandBase {
   fps: number;
   /** copy only: from copyReadSeconds (start must be a keyframe's exact time). */
   copyVideoSeconds?: number;
+  /** encode only: as in renditionCommand, default 720. */
+  maxHeight?: number;
 }
 
 export function cutCommand(o: CutOptions): FfmpegCommand {
@@ -431,12 +437,13 @@ export function cutCommand(o: CutOptions): FfmpegCommand {
   // frame shown exactly at `start` must be kept while the one at `end` must not.
   const guard = 0.25 / fps;
   const from = Math.max(0, start - guard);
+  const maxHeight = checkNumber('maxHeight', o.maxHeight ?? 720, { integer: true, min: 144, max: 4320 });
   return {
     globalOptions: globalOptions({ strict: o.strict }),
     inputs: [{ options: [...guards, '-ss', formatSeconds(from)], url }],
     outputOptions: [
       '-t', formatSeconds(end - guard - from),
-      '-map', '0:v:0', '-map', '0:a:0?', ...DROP_EXTRAS, ...ENCODE_VIDEO, '-c:a', WEB_VIDEO.audioCodec, ...MP4_OUT,
+      '-map', '0:v:0', '-map', '0:a:0?', ...DROP_EXTRAS, '-vf', scaleToHeight(maxHeight), ...ENCODE_VIDEO, '-c:a', WEB_VIDEO.audioCodec, ...MP4_OUT,
     ],
     output: fileUrl(o.output),
     durationSeconds: end - start,

@@ -9,6 +9,7 @@
  * before the process has gone, the second runs an extra ffprobe on the input without our guards.
  */
 import { execFile } from 'node:child_process';
+import { access, constants } from 'node:fs/promises';
 import ffmpeg from 'fluent-ffmpeg';
 import { probeArgs, toArgs, type FfmpegCommand } from './ffmpeg-commands';
 import { MediaError, REASONS, mediaErrorFromStderr, type FailureContext } from './media-error';
@@ -26,23 +27,30 @@ export function setFfprobePath(path: string): void {
 
 export interface RunOptions {
   timeoutMs: number;
-  /** 0…1, from ffmpeg's progress lines and the command's durationSeconds. */
-  onProgress?: (fraction: number) => void;
+  /** 0…1 from ffmpeg's progress lines and the command's durationSeconds, at most once per percent. */
+  onProgress?: (fraction: number) => unknown;
   /** Called once the process exists (logs, tests that check it is gone afterwards). */
   onStart?: (pid: number, commandLine: string) => void;
 }
 
-// Keep stderr bounded on long runs: progress lines replace each other, other lines are kept up to a cap.
+// Keep stderr bounded on long runs: progress lines replace each other; past the cap the oldest lines go.
 const MAX_STDERR_CHARS = 16 * 1024 * 1024;
 const PROGRESS_LINE = /^\s*(frame|size)=.*time=/;
 const PROGRESS_TIME = /time=\s*(\d+):(\d{2}):(\d{2}(?:\.\d+)?)/;
 
 /** Runs one command; resolves with its stderr (progress lines collapsed), rejects with a MediaError. */
-export function run(command: FfmpegCommand, options: RunOptions): Promise<string> {
+export async function run(command: FfmpegCommand, options: RunOptions): Promise<string> {
+  // fluent-ffmpeg 2.1.3 throws a TypeError from inside its spawn-error handler when the binary is
+  // missing (its output rings do not exist yet), which would escape as an uncaught exception and
+  // leave this promise pending. Check first so that path is never taken.
+  await access(ffmpegPath, constants.X_OK).catch((error: Error) => {
+    throw new MediaError('tool_missing', REASONS.tool_missing, error.message);
+  });
   return new Promise((resolve, reject) => {
     const lines: string[] = [];
     let chars = 0;
     let lastWasProgress = false;
+    let reported = -1;
     let timedOut = false;
     let settled = false;
 
@@ -78,16 +86,25 @@ export function run(command: FfmpegCommand, options: RunOptions): Promise<string
     cmd.on('stderr', (line: string) => {
       const isProgress = PROGRESS_LINE.test(line);
       if (isProgress && lastWasProgress) lines[lines.length - 1] = line;
-      else if (chars < MAX_STDERR_CHARS) {
+      else {
         lines.push(line);
         chars += line.length + 1;
+        // Over the cap, forget the older half: the last lines say why a run failed.
+        if (chars > MAX_STDERR_CHARS) chars -= lines.splice(0, lines.length >> 1).reduce((n, l) => n + l.length + 1, 0);
       }
       lastWasProgress = isProgress;
       if (isProgress && options.onProgress && command.durationSeconds) {
         const m = PROGRESS_TIME.exec(line);
-        if (m) {
-          const seconds = Number(m[1]) * 3600 + Number(m[2]) * 60 + Number(m[3]);
-          options.onProgress(Math.min(1, Math.max(0, seconds / command.durationSeconds)));
+        const fraction = m ? Math.min(1, Math.max(0, (Number(m[1]) * 3600 + Number(m[2]) * 60 + Number(m[3])) / command.durationSeconds)) : -1;
+        // Whole percents only (ffmpeg reports ten times a second); a throwing or rejecting callback
+        // must not take the worker down from inside a stream callback.
+        if (fraction >= 0 && (Math.floor(fraction * 100) > Math.floor(reported * 100) || (fraction === 1 && reported < 1))) {
+          reported = fraction;
+          try {
+            Promise.resolve(options.onProgress(fraction)).catch(() => undefined);
+          } catch {
+            // ignored: progress is advisory
+          }
         }
       }
     });

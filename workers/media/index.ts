@@ -14,12 +14,13 @@
  *                                                                serve the original)
  *   detectScenes(input, threshold = 0.3)     → seconds[] of proposed cuts
  *   readVideoPackets(input) / keyframeTimes(packets) / chooseCutMode(cuts, keyframes, fps)
- *   cutSegment(input, output.mp4, { startSeconds, endSeconds, mode = 'auto' }) → { mode }
+ *   cutSegment(input, output.mp4, { startSeconds, endSeconds, mode = 'auto', maxHeight = 720 }) → { mode }
  *   verifyDecodable(input)                   decodes all, throws MediaError 'damaged' with the time
  *
- * Every step accepts { info?: ProbeResult (skip re-probing), timeoutMs?, onProgress?, onStart?,
- * tolerateDamage? }. Steps are strict by default: a decoding error fails the step with
- * "stream unreadable near m:ss"; tolerateDamage lets ffmpeg conceal it instead.
+ * Every step accepts { info?: ProbeResult (skip re-probing), timeoutMs? (per ffmpeg/ffprobe run;
+ * default 5 min), onProgress?, onStart?, tolerateDamage? }. Steps are strict by default: a decoding
+ * error fails the step with "stream unreadable near m:ss"; tolerateDamage lets ffmpeg conceal it.
+ * A RangeError means the caller passed a bad argument (e.g. a threshold outside 0–1): validate first.
  */
 import { stat } from 'node:fs/promises';
 import {
@@ -57,7 +58,7 @@ export type { ProbeResult, VideoPacket } from './probe-result';
 export { setFfmpegPath, setFfprobePath };
 
 export const DEFAULT_TIMEOUT_MS = 5 * 60_000;
-/** Beyond 8K (7680×4320 and the like) a frame alone is hundreds of MB to decode: refuse early. */
+/** Beyond 8K (8192×4320) decoding, filtering and encoding buffers outgrow what a worker should risk on an upload. */
 export const MAX_PIXELS = 8192 * 4320;
 
 let defaultTimeoutMs = DEFAULT_TIMEOUT_MS;
@@ -75,7 +76,7 @@ export interface StepOptions {
   /** The source's probe, when the caller already has it. */
   info?: ProbeResult;
   timeoutMs?: number;
-  onProgress?: (fraction: number) => void;
+  onProgress?: (fraction: number) => unknown;
   onStart?: (pid: number, commandLine: string) => void;
   /** Let ffmpeg conceal decoding errors instead of failing the step. */
   tolerateDamage?: boolean;
@@ -176,18 +177,21 @@ export async function readVideoPackets(input: string, options: StepOptions = {})
 
 /**
  * One snap out of a tape. 'copy' keeps the video as is (fast, exact only on keyframes; the audio
- * is re-encoded to trim it exactly); 'encode' re-encodes to the web format; 'auto' copies when both
- * ends fall on keyframes (see chooseCutMode) and encodes otherwise. A copied clip keeps the
- * source's codecs: cut the web rendition, not an unplayable original.
+ * is re-encoded to trim it exactly); 'encode' re-encodes to the web format (at most maxHeight,
+ * default 720); 'auto' (the default) copies when the source is already web-playable and both ends
+ * fall on keyframes (see chooseCutMode), and encodes otherwise.
  */
 export async function cutSegment(
   input: string,
   output: string,
-  options: StepOptions & { startSeconds: number; endSeconds: number; mode?: CutMode | 'auto'; packets?: VideoPacket[] },
+  options: StepOptions & { startSeconds: number; endSeconds: number; mode?: CutMode | 'auto'; packets?: VideoPacket[]; maxHeight?: number },
 ): Promise<{ mode: CutMode }> {
   const info = options.info ?? (await probeMedia(input, options));
-  if (!(info.fps > 0)) throw new MediaError('failed', REASONS.failed, 'frame rate unknown');
-  const requested = options.mode ?? 'auto';
+  if (!(info.fps > 0 && info.fps <= 1000)) throw new MediaError('failed', REASONS.failed, `frame rate unknown or implausible: ${info.fps}`);
+  const maxHeight = options.maxHeight ?? 720;
+  // 'auto' copies only what a browser can play as it is; anything else is encoded to the web format.
+  const webReady = renditionPlan(info, { maxHeight }).action !== 'transcode';
+  const requested = options.mode === undefined || options.mode === 'auto' ? (webReady ? 'auto' : 'encode') : options.mode;
   let { startSeconds, endSeconds } = options;
   let mode: CutMode = requested === 'copy' ? 'copy' : 'encode';
   let copyVideoSeconds: number | undefined;
@@ -209,7 +213,7 @@ export async function cutSegment(
     }
   }
   await execute(
-    cutCommand({ input, inputFormat: info.formatName, output, startSeconds, endSeconds, mode, fps: info.fps, copyVideoSeconds, strict: !options.tolerateDamage }),
+    cutCommand({ input, inputFormat: info.formatName, output, startSeconds, endSeconds, mode, fps: info.fps, copyVideoSeconds, maxHeight, strict: !options.tolerateDamage }),
     options,
     { input, inputFormat: info.formatName },
   );

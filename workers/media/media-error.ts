@@ -76,7 +76,7 @@ const DECODER_LINE =
  * real stderr lines. Order matters: the most specific pattern wins.
  */
 export function classifyFailure(stderr: string, context: FailureContext = {}): { code: MediaErrorCode; reason: string } {
-  if (/Format .*not on whitelist|Format not on whitelist/i.test(stderr)) return { code: 'not_video', reason: REASONS.not_video };
+  if (/not on whitelist/i.test(stderr)) return { code: 'not_video', reason: REASONS.not_video };
   // ffmpeg picks the MP4 demuxer for any *.mp4 name, so "moov atom not found" alone does not mean
   // a cut-short MP4: only a file that starts with MP4 boxes is truncated; anything else is not video.
   if (/moov atom not found/i.test(stderr)) {
