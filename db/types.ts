@@ -261,7 +261,113 @@ export interface GradingLockEventsTable {
   created_at: Timestamp;
 }
 
+export interface ClipCommentsTable {
+  id: Generated<number>;
+  team_id: number;
+  clip_id: number;
+  parent_id: number | null;
+  author_id: number;
+  at_ms: number;
+  end_ms: number | null;
+  kind: string;
+  component: string | null;
+  body: string;
+  hidden_at: NullableTimestamp;
+  hidden_by: number | null;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+}
+
+export interface CommentRevisionsTable {
+  id: Generated<number>;
+  comment_id: number;
+  body: string;
+  edited_by: number | null;
+  edited_at: Timestamp;
+}
+
+export interface CommentTargetsTable {
+  comment_id: number;
+  player_id: number;
+  acknowledged_at: NullableTimestamp;
+  digested_at: NullableTimestamp;
+}
+
+export interface ClipViewsTable {
+  clip_id: number;
+  player_id: number;
+  ranges: ColumnType<[number, number][], string | undefined, string>;
+  watched_ms: Generated<number>;
+  last_seen_at: Timestamp;
+}
+
+export interface CutupsTable {
+  id: Generated<number>;
+  team_id: number;
+  title: string;
+  description: string | null;
+  filter: ColumnType<unknown, string | null | undefined, string | null>;
+  created_by: number | null;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+}
+
+export interface CutupItemsTable {
+  cutup_id: number;
+  position: number;
+  clip_id: number;
+  note: string | null;
+}
+
+export interface CutupSharesTable {
+  id: Generated<number>;
+  cutup_id: number;
+  player_id: number | null;
+  position_group: string | null;
+}
+
+export interface MailPreferencesTable {
+  user_id: number;
+  coaching_digest: Generated<boolean>;
+  digest_every_hours: Generated<number>;
+  weekly_summary: Generated<boolean>;
+  unsubscribe_token_hash: string | null;
+  last_digest_at: NullableTimestamp;
+  updated_at: Timestamp;
+}
+
+export interface PlayerGoalsTable {
+  id: Generated<number>;
+  player_id: number;
+  component: string;
+  /** numeric(4,3): a string from pg. */
+  target: ColumnType<string, number | string, number | string>;
+  due_on: DateString | null;
+  note: string | null;
+  set_by: number | null;
+  achieved_at: NullableTimestamp;
+  created_at: Timestamp;
+}
+
+export interface PlayerNotesTable {
+  id: Generated<number>;
+  player_id: number;
+  author_id: number;
+  body: string;
+  created_at: Timestamp;
+}
+
 export interface DB {
+  player_goals: PlayerGoalsTable;
+  player_notes: PlayerNotesTable;
+  clip_comments: ClipCommentsTable;
+  comment_revisions: CommentRevisionsTable;
+  comment_targets: CommentTargetsTable;
+  clip_views: ClipViewsTable;
+  cutups: CutupsTable;
+  cutup_items: CutupItemsTable;
+  cutup_shares: CutupSharesTable;
+  mail_preferences: MailPreferencesTable;
   grading_schemes: GradingSchemesTable;
   depth_chart_entries: DepthChartEntriesTable;
   depth_chart_changes: DepthChartChangesTable;

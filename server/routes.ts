@@ -2,6 +2,7 @@ import { authRoutes } from './auth/auth.routes';
 import { devRoutes } from './dev/dev.routes';
 import { filmRoutes } from './film/film.routes';
 import { gradingRoutes } from './grading/grading.routes';
+import { filmRoomRoutes } from './film-room/film-room.routes';
 import { healthRoutes } from './health/health.routes';
 import { rosterRoutes } from './roster/roster.routes';
 import { staffRoutes } from './staff/staff.routes';
@@ -20,6 +21,7 @@ export function allRoutes(deps: AuthDeps & { version: string; startedAt: number 
     ...staffRoutes(),
     ...filmRoutes(),
     ...gradingRoutes(),
+    ...filmRoomRoutes(),
     ...devRoutes(),
   ];
 }

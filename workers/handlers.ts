@@ -5,6 +5,8 @@ import type { Logger } from '../server/core/logger';
 import type { JobQueue } from '../server/core/queue';
 import type { ObjectStorage } from '../server/core/storage';
 import { clipJobDead } from './clip-dead.handler';
+import { sendCoachingDigest } from './coaching-digest.handler';
+import { sendWeeklySummaries } from './weekly-summary.handler';
 import type { Mailer } from './mailer';
 import type { MediaOps } from './media-ops';
 import { processClip } from './process-clip.handler';
@@ -31,4 +33,6 @@ export const HANDLERS: { [N in JobName]: JobHandler<N> } = {
   'tape.detect': detectTapeCuts,
   'tape.split': splitTape,
   'clip.dead': clipJobDead,
+  'digest.coaching': sendCoachingDigest,
+  'summary.weekly': sendWeeklySummaries,
 };

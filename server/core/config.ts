@@ -45,6 +45,7 @@ const envSchema = z.object({
   RENDITION_MAX_HEIGHT: z.coerce.number().int().min(144).max(2160).default(720),
   STRIP_FRAMES: z.coerce.number().int().min(2).max(200).default(40),
   JOB_MAINTENANCE_SECONDS: z.coerce.number().int().min(1).max(3600).default(60),
+  DIGEST_DELAY_SECONDS: z.coerce.number().int().min(0).max(86400).default(120),
 });
 
 export interface Config {
@@ -87,6 +88,8 @@ export interface Config {
   };
   /** How often the queue looks for expired (crashed) jobs to hand out again. */
   readonly jobMaintenanceSeconds: number;
+  /** New coaching points wait this long before their digest goes, so a session's points arrive in one mail. */
+  readonly digestDelaySeconds: number;
 }
 
 // Used only outside production when no secret is configured: sessions then do not survive
@@ -147,5 +150,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       stripFrames: e.STRIP_FRAMES,
     }),
     jobMaintenanceSeconds: e.JOB_MAINTENANCE_SECONDS,
+    digestDelaySeconds: e.DIGEST_DELAY_SECONDS,
   });
 }

@@ -27,6 +27,10 @@ export interface JobPayloads {
   'tape.split': { clipId: number; cutsMs: number[] };
   /** A clip job that used up its attempts: mark the clip failed with the reason. */
   'clip.dead': { clipId: number };
+  /** One mail with a player's new coaching points (at most one per player per hour). */
+  'digest.coaching': { playerId: number };
+  /** The weekly development summary to each player of a team who wants it. */
+  'summary.weekly': { teamId: number };
 }
 export type JobName = keyof JobPayloads;
 
@@ -47,6 +51,8 @@ export const JOB_POLICIES: { readonly [N in JobName]: JobPolicy } = {
   'tape.detect': { retryLimit: 2, retryDelay: 5, retryBackoff: true, expireInSeconds: 1200, deadLetter: 'clip.dead' },
   'tape.split': { retryLimit: 2, retryDelay: 5, retryBackoff: true, expireInSeconds: 3600, deadLetter: 'clip.dead' },
   'clip.dead': { retryLimit: 5, retryDelay: 5, retryBackoff: true, expireInSeconds: 60 },
+  'digest.coaching': { retryLimit: 5, retryDelay: 30, retryBackoff: true, expireInSeconds: 120 },
+  'summary.weekly': { retryLimit: 3, retryDelay: 60, retryBackoff: true, expireInSeconds: 600 },
 };
 
 /**

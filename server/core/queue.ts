@@ -10,7 +10,16 @@ export interface JobQueue {
   readonly boss: PgBoss;
   start(): Promise<void>;
   stop(): Promise<void>;
-  send<N extends JobName>(name: N, data: JobPayloads[N], trx?: Kysely<any>): Promise<string | null>;
+  send<N extends JobName>(name: N, data: JobPayloads[N], trx?: Kysely<any>, options?: SendTiming): Promise<string | null>;
+}
+
+/** When a job may run, and at most one per key per time slot (pg-boss throttling). */
+export interface SendTiming {
+  startAfterSeconds?: number;
+  singletonKey?: string;
+  singletonSeconds?: number;
+  /** A send in a slot already used is queued for the next slot instead of dropped. */
+  singletonNextSlot?: boolean;
 }
 
 export interface QueueOptions {
@@ -52,12 +61,19 @@ export function createJobQueue(connectionString: string, options: QueueOptions =
       started = false;
       await boss.stop({ graceful: true, wait: true, timeout: 10_000 });
     },
-    send(name, data, trx) {
+    send(name, data, trx, timing = {}) {
       const db = trx
         ? { executeSql: async (text: string, values: unknown[]) => trx.executeQuery(CompiledQuery.raw(text, values)) as Promise<{ rows: any[] }> }
         : undefined;
       const { deadLetter: _deadLetter, ...policy } = policies[name];
-      return boss.send(name, data as object, { ...policy, db });
+      return boss.send(name, data as object, {
+        ...policy,
+        db,
+        ...(timing.startAfterSeconds ? { startAfter: timing.startAfterSeconds } : {}),
+        ...(timing.singletonKey ? { singletonKey: timing.singletonKey } : {}),
+        ...(timing.singletonSeconds ? { singletonSeconds: timing.singletonSeconds } : {}),
+        ...(timing.singletonNextSlot ? { singletonNextSlot: true } : {}),
+      });
     },
   };
 }

@@ -17,7 +17,8 @@ import {
   tapeDetectSchema,
   uploadResponseSchema,
 } from '@shared/api/film';
-import { STAFF_ROLES, type Role } from '@shared/roles';
+import { ROLES, STAFF_ROLES, type Role } from '@shared/roles';
+import { assertClipVisible } from '../film-room/visibility';
 import { defineRoute, Reply, teamFromPath, type RouteDefinition } from '../core/route';
 import { getClip, listClips, receiveUpload, removeClip, retryClip, streamClipMedia } from './clips.service';
 import { createFilmSession, getFilmSession, listFilmSessions, updateFilmSession } from './film-sessions.service';
@@ -30,6 +31,8 @@ const staff = STAFF_ROLES;
 const listEditors: readonly Role[] = ['admin', 'coordinator', 'analyst'];
 const sessionAccess = { kind: 'team', roles: staff, team: teamOfSession } as const;
 const clipAccess = { kind: 'team', roles: staff, team: teamOfClip } as const;
+/** Players may read a clip and its media when it is tagged to or shared with them (checked per clip). */
+const clipReaders = { kind: 'team', roles: ROLES, team: teamOfClip } as const;
 
 function mediaRoute(variant: 'poster' | 'playback' | 'strip', description: string, contentType: string): RouteDefinition {
   return defineRoute({
@@ -38,10 +41,13 @@ function mediaRoute(variant: 'poster' | 'playback' | 'strip', description: strin
     path: `/clips/{id}/${variant}`,
     summary: `${description} Answers Range requests with 206. Team members only.`,
     tags: ['film'],
-    access: clipAccess,
+    access: clipReaders,
     params: idParams,
-    responses: { 200: { description, contentType }, 206: { description: 'Partial content', contentType }, 404: { description: 'Not made yet' } },
-    handler: async ({ app, req, res, params }) => streamClipMedia(app, req, res, params.id, variant),
+    responses: { 200: { description, contentType }, 206: { description: 'Partial content', contentType }, 404: { description: 'Not made yet, or not shared with this player' } },
+    handler: async ({ app, req, res, params, membership }) => {
+      await assertClipVisible(app, membership!, params.id);
+      return streamClipMedia(app, req, res, params.id, variant);
+    },
   });
 }
 
@@ -214,12 +220,15 @@ export function filmRoutes(): RouteDefinition[] {
       operationId: 'getClip',
       method: 'get',
       path: '/clips/{id}',
-      summary: 'One clip: state, failure reason, probe facts and its media addresses.',
+      summary: 'One clip: state, failure reason, probe facts and its media addresses (players: only clips tagged to or shared with them).',
       tags: ['film'],
-      access: clipAccess,
+      access: clipReaders,
       params: idParams,
       responses: { 200: { description: 'The clip', schema: clipSchema } },
-      handler: async ({ app, params }) => getClip(app, params.id),
+      handler: async ({ app, params, membership }) => {
+        await assertClipVisible(app, membership!, params.id);
+        return getClip(app, params.id);
+      },
     }),
     defineRoute({
       operationId: 'placeClip',

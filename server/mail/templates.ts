@@ -57,3 +57,42 @@ export function gradeSheetMail(args: { to: string; playerName: string; sessionTi
     purpose: 'grade_sheet',
   };
 }
+
+export interface DigestPoint {
+  sessionTitle: string;
+  snapOrder: number | null;
+  at: string;
+  kind: string;
+  body: string;
+  author: string;
+  link: string;
+}
+
+/** New coaching points in one mail, with a link straight to each clip. Non-essential: has an unsubscribe link. */
+export function coachingDigestMail(args: { to: string; playerName: string; points: DigestPoint[]; queueLink: string; unsubscribeLink: string }): MailMessage {
+  const count = args.points.length;
+  const intro = `Hi ${args.playerName}, your coaches left ${count} new coaching point${count === 1 ? '' : 's'} on your film.`;
+  const lines = args.points.map((p) => `${p.sessionTitle}${p.snapOrder ? `, snap ${p.snapOrder}` : ''} at ${p.at} (${p.kind}, ${p.author}): ${p.body}\n  ${p.link}`);
+  const footer = `You get at most one of these an hour. Stop these mails: ${args.unsubscribeLink}`;
+  const items = args.points
+    .map((p) => `<li style="margin:0 0 10px"><strong>${escapeHtml(p.sessionTitle)}${p.snapOrder ? `, snap ${p.snapOrder}` : ''} · ${escapeHtml(p.at)}</strong> — ${escapeHtml(p.kind)}, ${escapeHtml(p.author)}<br>${escapeHtml(p.body)}<br><a href="${escapeHtml(p.link)}">Watch this clip</a></li>`)
+    .join('');
+  return {
+    to: args.to,
+    subject: `${count} new coaching point${count === 1 ? '' : 's'} on your film`,
+    text: `${intro}\n\n${lines.join('\n\n')}\n\nYour study queue: ${args.queueLink}\n\n${footer}\n`,
+    html: `<!doctype html><html><body style="font-family:'Open Sans',Arial,sans-serif;color:#1F2A36;background:#F5F3EE;padding:24px"><div style="max-width:560px;margin:auto;background:#fff;border-radius:8px;padding:24px"><p style="font-weight:700;font-size:18px;margin:0 0 16px">Trenchwork</p><p>${escapeHtml(intro)}</p><ul style="padding-left:18px">${items}</ul><p><a href="${escapeHtml(args.queueLink)}">Open your study queue</a></p><p style="font-size:12px;color:#55606b">You get at most one of these an hour. <a href="${escapeHtml(args.unsubscribeLink)}">Stop these mails</a>.</p></div></body></html>`,
+    purpose: 'coaching_digest',
+  };
+}
+
+export function weeklySummaryMail(args: { to: string; playerName: string; lines: string[]; link: string; unsubscribeLink: string }): MailMessage {
+  const intro = `Hi ${args.playerName}, here is your week on film.`;
+  return {
+    to: args.to,
+    subject: 'Your week on film',
+    text: `${intro}\n\n${args.lines.join('\n')}\n\n${args.link}\n\nStop these weekly mails: ${args.unsubscribeLink}\n`,
+    html: layout([intro, ...args.lines, `Stop these weekly mails: ${args.unsubscribeLink}`], { href: args.link, label: 'See your progress' }),
+    purpose: 'weekly_summary',
+  };
+}

@@ -12,7 +12,8 @@ type Caller = 'anonymous' | Role | 'otherTeamAdmin';
 // Least privileged first: a route that deletes its object runs for those who must be refused
 // before an allowed caller removes the object.
 const CALLERS: Caller[] = ['anonymous', 'otherTeamAdmin', 'player', 'analyst', 'coach', 'coordinator', 'admin'];
-type Rule = 'public' | 'signedIn' | readonly Role[];
+// 'players': any signed-in account may call it, but only a player gets an answer (others 403).
+type Rule = 'public' | 'signedIn' | 'players' | readonly Role[];
 
 const STAFF: readonly Role[] = ['admin', 'coordinator', 'coach', 'analyst'];
 const EDITORS: readonly Role[] = ['admin', 'coordinator'];
@@ -55,15 +56,15 @@ const EXPECTED: Record<string, Rule> = {
   importSnapsCsv: STAFF,
   tagSnap: STAFF,
   deleteSnap: STAFF,
-  getClip: STAFF,
+  getClip: ROLES,
   placeClip: STAFF,
   removeClip: STAFF,
   retryClip: STAFF,
   detectTapeCuts: STAFF,
   splitTape: STAFF,
-  clipPoster: STAFF,
-  clipStrip: STAFF,
-  clipPlayback: STAFF,
+  clipPoster: ROLES,
+  clipStrip: ROLES,
+  clipPlayback: ROLES,
   listTagLists: STAFF,
   addTagListItem: LIST_EDITORS,
   updateTagListItem: LIST_EDITORS,
@@ -82,16 +83,39 @@ const EXPECTED: Record<string, Rule> = {
   saveDepthChart: EDITORS,
   depthChartHistory: STAFF,
   practiceReps: STAFF,
+  createCoachingPoint: GRADERS,
+  listClipComments: ROLES,
+  askQuestion: ['player'],
+  replyToComment: ROLES,
+  editComment: ROLES,
+  // Object level: the fixture's comment is the coach's; leads may remove any; others only their own.
+  hideComment: GRADERS,
+  acknowledgeComment: ['player'],
+  recordClipView: ['player'],
+  myClips: 'players',
+  myCutups: 'players',
+  studyReport: STAFF,
+  previewCutup: STAFF,
+  createCutup: GRADERS,
+  listCutups: ROLES,
+  getCutup: ROLES,
+  updateCutup: GRADERS,
+  shareCutup: GRADERS,
+  getMailPreferences: 'signedIn',
+  saveMailPreferences: 'signedIn',
+  unsubscribe: 'public',
+  sendWeeklySummaries: EDITORS,
 };
 
 /** Requests that name their team outside the path carry it, so a stranger is refused for the team, not the form. */
 const QUERY: Record<string, string> = { listFilmSessions: `teamId=` };
-const BODY: Record<string, (f: TeamFixture) => object> = { createFilmSession: (f) => ({ teamId: f.teamId }) };
+const BODY: Record<string, (f: TeamFixture) => object> = { createFilmSession: (f) => ({ teamId: f.teamId }), previewCutup: (f) => ({ teamId: f.teamId }), createCutup: (f) => ({ teamId: f.teamId }) };
 
 function expectedStatus(rule: Rule, caller: Caller): 'allowed' | 401 | 403 {
   if (rule === 'public') return 'allowed';
   if (caller === 'anonymous') return 401;
   if (rule === 'signedIn') return 'allowed';
+  if (rule === 'players') return caller === 'player' ? 'allowed' : 403;
   if (caller === 'otherTeamAdmin') return 403;
   return rule.includes(caller) ? 'allowed' : 403;
 }
@@ -109,7 +133,7 @@ const clients = new Map<Caller, ApiClient>();
 let operations: Operation[];
 let invitationId: number;
 let coachMembershipId: number;
-let film: { sessionId: number; snapId: number; clipId: number; tagItemId: number };
+let film: { sessionId: number; snapId: number; clipId: number; tagItemId: number; commentId: number; cutupId: number };
 
 beforeAll(async () => {
   t = await startTestApp();
@@ -138,7 +162,8 @@ beforeAll(async () => {
     Object.entries(methods).map(([method, op]) => ({ operationId: op.operationId, method: method as Operation['method'], path })),
   );
   // Deletions and sign-out (which ends the caller's session) run last.
-  const last = (o: Operation) => Number(o.method === 'delete') + 2 * Number(o.operationId === 'logout');
+  // Removing the clip takes its comments with it, so it goes after the comment's own removal.
+  const last = (o: Operation) => Number(o.method === 'delete') + Number(o.operationId === 'removeClip') + 3 * Number(o.operationId === 'logout');
   operations.sort((a, b) => last(a) - last(b));
 });
 
@@ -159,12 +184,26 @@ async function createFilmFixture(app: TestApp, f: TeamFixture) {
     .values({ team_id: f.teamId, session_id: session.id, snap_id: snap.id, upload_order: 1, original_name: 'play1.mp4', status: 'failed', failure_reason: 'not a video file' })
     .returning('id')
     .executeTakeFirstOrThrow();
+  const comment = await db
+    .insertInto('clip_comments')
+    .values({ team_id: f.teamId, clip_id: clip.id, author_id: f.accounts.coach.userId, at_ms: 0, kind: 'teaching', body: 'Hat on the 3 technique.' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const cutup = await db.insertInto('cutups').values({ team_id: f.teamId, title: 'Pad level', created_by: f.accounts.coach.userId }).returning('id').executeTakeFirstOrThrow();
   const item = await db.insertInto('tag_list_items').values({ team_id: f.teamId, kind: 'front', name: 'over' }).returning('id').executeTakeFirstOrThrow();
-  return { sessionId: session.id, snapId: snap.id, clipId: clip.id, tagItemId: item.id };
+  return { sessionId: session.id, snapId: snap.id, clipId: clip.id, tagItemId: item.id, commentId: comment.id, cutupId: cutup.id };
 }
 
 function concretePath(path: string): string {
-  const idFor = path.startsWith('/api/film-sessions/') ? film.sessionId : path.startsWith('/api/snaps/') ? film.snapId : film.clipId;
+  const idFor = path.startsWith('/api/film-sessions/')
+    ? film.sessionId
+    : path.startsWith('/api/snaps/')
+      ? film.snapId
+      : path.startsWith('/api/comments/')
+        ? film.commentId
+        : path.startsWith('/api/cutups/')
+          ? film.cutupId
+          : film.clipId;
   const values: Record<string, string> = {
     id: String(idFor),
     snapId: String(film.snapId),

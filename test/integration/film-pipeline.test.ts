@@ -188,7 +188,9 @@ describe('per-snap clips from two angles', () => {
     expect(anonymous.status).toBe(401);
     const player = t.client();
     expect((await player.login(team.accounts.player.email, TEST_PASSWORD)).status).toBe(200);
-    expect((await player.get(clip.posterUrl!)).status).toBe(403);
+    // A clip not tagged to or shared with the player does not exist for him.
+    expect((await player.get(clip.posterUrl!)).status).toBe(404);
+    expect((await player.get(`/api/clips/${clip.id}`)).status).toBe(404);
   });
 });
 

@@ -1,0 +1,19 @@
+/**
+ * Typed handles on the reference libraries the specs check against (devDependencies, tests only:
+ * never import this from runtime code). jstat ships no type declarations.
+ */
+// eslint-disable-next-line @typescript-eslint/no-require-imports
+const { jStat } = require('jstat') as { jStat: JStat };
+export { jStat };
+export { linearRegression } from 'simple-statistics';
+
+export interface JStat {
+  normal: { cdf(x: number, mean: number, sd: number): number; inv(p: number, mean: number, sd: number): number };
+  beta: { pdf(x: number, a: number, b: number): number; mean(a: number, b: number): number; variance(a: number, b: number): number };
+  studentt: { cdf(x: number, df: number): number; inv(p: number, df: number): number };
+  chisquare: { cdf(x: number, df: number): number };
+  ibeta(x: number, a: number, b: number): number;
+  gammaln(x: number): number;
+  erfc(x: number): number;
+  models: { ols(endog: number[], exog: number[][]): { coef: number[]; t: { se: number[] } } };
+}
