@@ -1,5 +1,5 @@
 import { Routes } from '@angular/router';
-import { STAFF_ROLES } from '@shared/roles';
+import { GRADING_ROLES, STAFF_ROLES } from '@shared/roles';
 import { roleGuard } from './core/auth/role-guard';
 import { signedInGuard } from './core/auth/signed-in-guard';
 import { signedOutGuard } from './core/auth/signed-out-guard';
@@ -49,6 +49,16 @@ export const routes: Routes = [
         path: 'film',
         canActivate: [roleGuard(STAFF_ROLES)],
         loadChildren: () => import('./features/film-library/film.routes').then((m) => m.filmRoutes),
+      },
+      {
+        path: 'grading',
+        canActivate: [roleGuard(GRADING_ROLES)],
+        loadChildren: () => import('./features/grading-desk/grading-desk.routes').then((m) => m.gradingDeskRoutes),
+      },
+      {
+        path: 'sheets',
+        canActivate: [roleGuard(STAFF_ROLES)],
+        loadChildren: () => import('./features/grade-sheet/grade-sheet.routes').then((m) => m.gradeSheetRoutes),
       },
       {
         path: 'roster',

@@ -49,12 +49,12 @@ describe('AppShell navigation', () => {
 
   it('gives an admin both Roster and Staff', async () => {
     const fixture = await render('admin');
-    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Roster', 'Staff']);
+    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Grading Desk', 'Roster', 'Staff']);
   });
 
   it('gives a position coach the Roster but not Staff', async () => {
     const fixture = await render('coach');
-    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Roster']);
+    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Grading Desk', 'Roster']);
   });
 
   it('adds the dev mailbox only when the API answers for it', async () => {
@@ -67,7 +67,7 @@ describe('AppShell navigation', () => {
     expect(navLabels(fixture)).not.toContain('Roster');
     TestBed.inject(AuthStore).selectTeam(2);
     await fixture.whenStable();
-    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Roster']);
+    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Grading Desk', 'Roster']);
     expect(localStorage.getItem('trenchwork.selectedTeamId')).toBe('2');
     expect((fixture.nativeElement as HTMLElement).querySelector('tw-team-switcher')?.textContent).toContain('Ironvale Anvils JV');
   });

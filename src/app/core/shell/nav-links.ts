@@ -1,4 +1,4 @@
-import { STAFF_ROLES, type Role } from '@shared/roles';
+import { GRADING_ROLES, STAFF_ROLES, type Role } from '@shared/roles';
 
 export interface NavLink {
   path: string;
@@ -9,6 +9,7 @@ export interface NavLink {
 const LINKS: { link: NavLink; roles: readonly Role[] }[] = [
   { link: { path: '/', label: 'This Week', icon: 'today' }, roles: ['admin', 'coordinator', 'coach', 'analyst', 'player'] },
   { link: { path: '/film', label: 'Film Library', icon: 'video_library' }, roles: STAFF_ROLES },
+  { link: { path: '/grading', label: 'Grading Desk', icon: 'grading' }, roles: GRADING_ROLES },
   { link: { path: '/roster', label: 'Roster', icon: 'groups' }, roles: STAFF_ROLES },
   { link: { path: '/staff', label: 'Staff', icon: 'badge' }, roles: ['admin'] },
 ];
