@@ -22,6 +22,7 @@ export interface TeamsTable {
   id: Generated<number>;
   name: string;
   share_grades_with_players: Generated<boolean>;
+  share_unit_with_players: Generated<boolean>;
   created_at: Timestamp;
 }
 

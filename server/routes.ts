@@ -3,6 +3,7 @@ import { devRoutes } from './dev/dev.routes';
 import { filmRoutes } from './film/film.routes';
 import { gradingRoutes } from './grading/grading.routes';
 import { filmRoomRoutes } from './film-room/film-room.routes';
+import { developmentRoutes } from './development/development.routes';
 import { healthRoutes } from './health/health.routes';
 import { rosterRoutes } from './roster/roster.routes';
 import { staffRoutes } from './staff/staff.routes';
@@ -22,6 +23,7 @@ export function allRoutes(deps: AuthDeps & { version: string; startedAt: number 
     ...filmRoutes(),
     ...gradingRoutes(),
     ...filmRoomRoutes(),
+    ...developmentRoutes(),
     ...devRoutes(),
   ];
 }

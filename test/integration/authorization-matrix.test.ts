@@ -105,10 +105,25 @@ const EXPECTED: Record<string, Rule> = {
   saveMailPreferences: 'signedIn',
   unsubscribe: 'public',
   sendWeeklySummaries: EDITORS,
+  // Object level: a player reads only his own page; the fixture's player is another lineman.
+  playerDevelopment: STAFF,
+  addPlayerGoal: GRADERS,
+  updatePlayerGoal: GRADERS,
+  addPlayerNote: GRADERS,
+  comparePlayers: STAFF,
+  graderAgreement: GRADERS,
+  // Unit numbers reach players only when the staff shares them (off in the fixture).
+  readinessMatrix: STAFF,
+  lineDashboard: STAFF,
+  teamSharing: EDITORS,
 };
 
 /** Requests that name their team outside the path carry it, so a stranger is refused for the team, not the form. */
-const QUERY: Record<string, string> = { listFilmSessions: `teamId=` };
+const QUERY: Record<string, (f: TeamFixture) => string> = {
+  listFilmSessions: (f) => `teamId=${f.teamId}`,
+  comparePlayers: (f) => `players=${f.playerIds[0]},${f.playerIds[2]}`,
+  graderAgreement: (f) => `graderA=${f.accounts.coach.userId}&graderB=${f.accounts.coordinator.userId}`,
+};
 const BODY: Record<string, (f: TeamFixture) => object> = { createFilmSession: (f) => ({ teamId: f.teamId }), previewCutup: (f) => ({ teamId: f.teamId }), createCutup: (f) => ({ teamId: f.teamId }) };
 
 function expectedStatus(rule: Rule, caller: Caller): 'allowed' | 401 | 403 {
@@ -205,7 +220,8 @@ function concretePath(path: string): string {
           ? film.cutupId
           : film.clipId;
   const values: Record<string, string> = {
-    id: String(idFor),
+    id: String(path.startsWith('/api/players/') ? team.playerIds[0] : idFor),
+    goalId: '999999',
     snapId: String(film.snapId),
     itemId: String(film.tagItemId),
     teamId: String(team.teamId),
@@ -231,7 +247,7 @@ test('every route answers each caller as expected (0 unexpected successes)', asy
   for (const op of operations) {
     for (const caller of CALLERS) {
       const client = clients.get(caller)!;
-      const query = QUERY[op.operationId] !== undefined ? `?${QUERY[op.operationId]}${team.teamId}` : '';
+      const query = QUERY[op.operationId] !== undefined ? `?${QUERY[op.operationId]!(team)}` : '';
       const url = concretePath(op.path) + query;
       // Empty bodies: an allowed caller gets a validation error, never a change of state.
       const body = op.operationId === 'logout' ? undefined : (BODY[op.operationId]?.(team) ?? {});

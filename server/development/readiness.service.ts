@@ -1,0 +1,89 @@
+import { sql } from 'kysely';
+import { rateWithInterval } from '@shared/stats';
+import type { AppContext } from '../core/context';
+import { currentScheme } from '../grading/scheme.service';
+import { resolveSeason } from '../teams/teams.service';
+
+/** A cell with fewer reps than this is marked "few reps": where practice reps should go. */
+export const FEW_REPS = 12;
+
+/**
+ * The readiness matrix: play concepts × fronts faced, each cell the reps (game and practice, every
+ * lineman's graded snap counts once) and the plus rate with its interval; cells with few reps or a
+ * rate under the team's winning grade are marked. One GROUP BY over the season's final grades.
+ */
+export async function readinessMatrix(app: AppContext, teamId: number, seasonId?: number) {
+  const season = await resolveSeason(app, teamId, seasonId);
+  const [cells, lists, scheme] = await Promise.all([
+    sql<{ concept_id: number; front_id: number; kind: string | null; plus: number; minus: number }>`
+      SELECT s.concept_id, s.front_id, fs.kind,
+             count(*) FILTER (WHERE g.result = 'plus')::int AS plus, count(*) FILTER (WHERE g.result = 'minus')::int AS minus
+      FROM final_grades g JOIN snaps s ON s.id = g.snap_id JOIN film_sessions fs ON fs.id = g.session_id
+      WHERE fs.team_id = ${teamId} AND fs.season_id = ${season.id} AND s.concept_id IS NOT NULL AND s.front_id IS NOT NULL AND g.result IS NOT NULL
+      GROUP BY GROUPING SETS ((s.concept_id, s.front_id), (s.concept_id, s.front_id, fs.kind))`.execute(app.db),
+    app.db.selectFrom('tag_list_items').select(['id', 'kind', 'name', 'active', 'sort_order']).where('team_id', '=', teamId).where('kind', 'in', ['concept', 'front']).orderBy('sort_order').execute(),
+    currentScheme(app.db, teamId),
+  ]);
+  const threshold = scheme.rules.winningThreshold;
+  const concepts = lists.filter((l) => l.kind === 'concept');
+  const fronts = lists.filter((l) => l.kind === 'front');
+  const totals = cells.rows.filter((c) => c.kind === null);
+  const used = (id: number, key: 'concept_id' | 'front_id') => totals.some((c) => c[key] === id);
+  const rows = concepts.filter((c) => c.active || used(c.id, 'concept_id'));
+  const columns = fronts.filter((f) => f.active || used(f.id, 'front_id'));
+  return {
+    seasonId: season.id,
+    winningThreshold: threshold,
+    fewReps: FEW_REPS,
+    concepts: rows.map((c) => ({ id: c.id, name: c.name })),
+    fronts: columns.map((f) => ({ id: f.id, name: f.name })),
+    cells: rows.flatMap((c) =>
+      columns.map((f) => {
+        const total = totals.find((x) => x.concept_id === c.id && x.front_id === f.id);
+        const game = cells.rows.find((x) => x.concept_id === c.id && x.front_id === f.id && x.kind === 'game');
+        const practice = cells.rows.find((x) => x.concept_id === c.id && x.front_id === f.id && x.kind === 'practice');
+        const r = rateWithInterval(total?.plus ?? 0, total?.minus ?? 0);
+        return {
+          conceptId: c.id,
+          frontId: f.id,
+          reps: r.snaps,
+          gameReps: (game?.plus ?? 0) + (game?.minus ?? 0),
+          practiceReps: (practice?.plus ?? 0) + (practice?.minus ?? 0),
+          plus: r.plus,
+          rate: r.rate,
+          interval: r.interval,
+          fewReps: r.snaps < FEW_REPS,
+          belowWinningGrade: r.rate !== null && r.rate < threshold,
+        };
+      }),
+    ),
+  };
+}
+
+/** The line by game: unit grade (snaps every lineman graded plus) and missed assignments by position and reason. */
+export async function lineDashboard(app: AppContext, teamId: number, seasonId?: number) {
+  const season = await resolveSeason(app, teamId, seasonId);
+  const [unit, missed] = await Promise.all([
+    sql<{ session_id: number; title: string; date: string; snaps: number; all_plus: number }>`
+      WITH per_snap AS (
+        SELECT g.session_id, g.snap_id, bool_and(g.result = 'plus') AS all_plus, count(*) AS graded,
+               (SELECT count(*) FROM snap_participants sp WHERE sp.snap_id = g.snap_id) AS listed
+        FROM final_grades g JOIN film_sessions fs ON fs.id = g.session_id
+        WHERE fs.team_id = ${teamId} AND fs.season_id = ${season.id} AND fs.kind = 'game' AND g.result IS NOT NULL
+        GROUP BY g.session_id, g.snap_id)
+      SELECT fs.id AS session_id, fs.title, fs.date::text AS date, count(*)::int AS snaps,
+             count(*) FILTER (WHERE p.all_plus AND p.graded >= greatest(p.listed, 5))::int AS all_plus
+      FROM per_snap p JOIN film_sessions fs ON fs.id = p.session_id
+      GROUP BY fs.id, fs.title, fs.date ORDER BY fs.date`.execute(app.db),
+    sql<{ position: string | null; reason: string | null; n: number }>`
+      SELECT g.position, g.missed_reason AS reason, count(*)::int AS n
+      FROM final_grades g JOIN film_sessions fs ON fs.id = g.session_id
+      WHERE fs.team_id = ${teamId} AND fs.season_id = ${season.id} AND g.assignment = 'missed'
+      GROUP BY g.position, g.missed_reason ORDER BY n DESC`.execute(app.db),
+  ]);
+  return {
+    seasonId: season.id,
+    games: unit.rows.map((u) => ({ sessionId: u.session_id, title: u.title, date: u.date, snaps: u.snaps, allPlus: u.all_plus, rate: u.snaps ? u.all_plus / u.snaps : null })),
+    missedAssignments: missed.rows.map((m) => ({ position: m.position ?? 'unknown', reason: m.reason ?? 'no reason given', count: m.n })),
+  };
+}
