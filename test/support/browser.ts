@@ -26,7 +26,8 @@ export interface BrowserHarness {
 
 /** The real API serving the built client on a free port, plus Debian's Chromium, headless. */
 export async function startBrowserHarness(): Promise<BrowserHarness> {
-  const staticDir = path.resolve(__dirname, '../../dist/trenchwork/browser');
+  // E2E_STATIC_DIR lets a run use a client built elsewhere (e.g. from another checkout).
+  const staticDir = process.env.E2E_STATIC_DIR ?? path.resolve(__dirname, '../../dist/trenchwork/browser');
   if (!existsSync(path.join(staticDir, 'index.html'))) throw new Error(`No built client in ${staticDir}: run \`npm test\` (it builds it).`);
   // Ask the OS for a free port first so PUBLIC_URL (used in CSRF origin checks and mail links) is right.
   const probe = createServer();
