@@ -4,6 +4,7 @@ import { filmRoutes } from './film/film.routes';
 import { gradingRoutes } from './grading/grading.routes';
 import { filmRoomRoutes } from './film-room/film-room.routes';
 import { developmentRoutes } from './development/development.routes';
+import { thisWeekRoutes } from './this-week/this-week.routes';
 import { healthRoutes } from './health/health.routes';
 import { rosterRoutes } from './roster/roster.routes';
 import { staffRoutes } from './staff/staff.routes';
@@ -24,6 +25,7 @@ export function allRoutes(deps: AuthDeps & { version: string; startedAt: number 
     ...gradingRoutes(),
     ...filmRoomRoutes(),
     ...developmentRoutes(),
+    ...thisWeekRoutes(),
     ...devRoutes(),
   ];
 }

@@ -116,6 +116,7 @@ const EXPECTED: Record<string, Rule> = {
   readinessMatrix: STAFF,
   lineDashboard: STAFF,
   teamSharing: EDITORS,
+  thisWeek: STAFF,
 };
 
 /** Requests that name their team outside the path carry it, so a stranger is refused for the team, not the form. */

@@ -12,9 +12,19 @@ import { inlineErrors } from '../../core/http/inline-errors';
 import { TeamStore } from '../../core/team/team-store';
 import { greetingFor } from './greeting';
 
+interface ThisWeekSummary {
+  nextGame: { sessionId: number; title: string; date: string; opponent: string | null; homeAway: string | null; week: number | null } | null;
+  lastGame: { sessionId: number; title: string; date: string; opponent: string | null; expectedCells: number; finalCells: number; locked: boolean } | null;
+  study: { sessionId: number; playersWithPoints: number; notCaughtUp: { playerId: number; name: string; jersey: number | null; points: number; acknowledged: number; watched: number; clips: number }[] } | null;
+}
+
+interface MyQueue {
+  clips: { clipId: number; comments: { acknowledged: boolean }[] }[];
+}
+
 /**
- * This Week, the home page. For now it shows only what the API knows: the team, its current season and,
- * for staff, the roster size. Grading progress and study status come with the issues that add them.
+ * This Week, the home page. Staff: the next opponent, how far grading of the last game has come,
+ * and who has not caught up on his coaching points. Players: how many points wait in the study queue.
  */
 @Component({
   selector: 'tw-this-week-page',
@@ -42,6 +52,25 @@ export class ThisWeekPage {
     const season = this.teams.currentSeason();
     if (teamId === null || !this.isStaff() || !season) return undefined;
     return { url: `/api/teams/${teamId}/players`, params: { seasonId: season.id }, context: inlineErrors() };
+  });
+
+  protected readonly summary = httpResource<ThisWeekSummary>(() => {
+    const teamId = this.auth.teamId();
+    if (teamId === null || !this.isStaff()) return undefined;
+    return { url: `/api/teams/${teamId}/this-week`, context: inlineErrors() };
+  });
+
+  protected readonly gradingShare = computed(() => {
+    const last = this.summary.hasValue() ? this.summary.value().lastGame : null;
+    if (!last || last.expectedCells === 0) return null;
+    return Math.min(100, Math.round((100 * last.finalCells) / last.expectedCells));
+  });
+
+  /** Players: points in the queue not yet acknowledged. */
+  protected readonly queue = httpResource<MyQueue>(() => (this.auth.role() === 'player' ? { url: '/api/me/clips', context: inlineErrors() } : undefined));
+  protected readonly openPoints = computed(() => {
+    if (!this.queue.hasValue()) return null;
+    return this.queue.value().clips.reduce((n, c) => n + c.comments.filter((p) => !p.acknowledged).length, 0);
   });
 
   protected readonly rosterCounts = computed(() => {
