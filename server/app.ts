@@ -42,7 +42,8 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
     pinoHttp({
       logger,
       genReqId: (req) => (req.headers['x-request-id'] as string | undefined)?.slice(0, 64) || randomUUID(),
-      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+      // Health and readiness probes every few seconds would drown the log.
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') || req.url.startsWith('/api/health') || req.url.startsWith('/api/ready') },
       customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
     }),
   );

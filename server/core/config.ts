@@ -21,7 +21,8 @@ const envSchema = z.object({
   SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).max(72).default(14),
   TRUST_PROXY: booleanFromEnv.default(false),
   STATIC_DIR: z.string().default('dist/trenchwork/browser'),
-  S3_ENDPOINT: z.string().optional(),
+  // An empty value means "not set" (compose files often pass VAR= through).
+  S3_ENDPOINT: z.preprocess((v) => (v === '' ? undefined : v), z.string().optional()),
   S3_REGION: z.string().default('us-east-1'),
   S3_BUCKET: z.string().default('trenchwork-media'),
   S3_ACCESS_KEY_ID: z.string().default('S3RVER'),
@@ -103,8 +104,18 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     throw new Error(`Invalid configuration:\n${lines.join('\n')}`);
   }
   const e = parsed.data;
-  if (e.NODE_ENV === 'production' && !e.SESSION_SECRET) {
-    throw new Error('Invalid configuration:\n  SESSION_SECRET: required in production (at least 32 characters).');
+  if (e.NODE_ENV === 'production') {
+    // Production never falls back to the local fakes' addresses and keys.
+    const required: [string, string | undefined][] = [
+      ['SESSION_SECRET', e.SESSION_SECRET],
+      ['DATABASE_URL', env.DATABASE_URL],
+      ['PUBLIC_URL', env.PUBLIC_URL],
+      ['SMTP_URL', env.SMTP_URL],
+      ['S3_ACCESS_KEY_ID', env.S3_ACCESS_KEY_ID],
+      ['S3_SECRET_ACCESS_KEY', env.S3_SECRET_ACCESS_KEY],
+    ];
+    const missing = required.filter(([, v]) => !v).map(([name]) => `  ${name}: required in production.`);
+    if (missing.length > 0) throw new Error(`Invalid configuration:\n${missing.join('\n')}`);
   }
   const publicUrl = (e.PUBLIC_URL ?? `http://${e.HOST}:${e.PORT}`).replace(/\/$/, '');
   return Object.freeze({

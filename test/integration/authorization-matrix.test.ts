@@ -23,6 +23,7 @@ const GRADERS: readonly Role[] = ['admin', 'coordinator', 'coach'];
 
 const EXPECTED: Record<string, Rule> = {
   health: 'public',
+  ready: 'public',
   login: 'public',
   logout: 'public',
   me: 'signedIn',
