@@ -3,6 +3,7 @@ import { GRADING_ROLES, STAFF_ROLES } from '@shared/roles';
 import { roleGuard } from './core/auth/role-guard';
 import { signedInGuard } from './core/auth/signed-in-guard';
 import { signedOutGuard } from './core/auth/signed-out-guard';
+import { coachingPointRoutes } from './features/coaching-points/coaching-points.routes';
 import { devMailGuard } from './features/dev-mailbox/dev-mail-guard';
 
 export const routes: Routes = [
@@ -35,6 +36,12 @@ export const routes: Routes = [
     loadComponent: () => import('./features/dev-mailbox/mailbox-page').then((m) => m.MailboxPage),
   },
   {
+    // Public on purpose: opened from a mail without signing in; only its button changes anything.
+    path: 'mail/unsubscribe',
+    title: 'Stop a mail · Trenchwork',
+    loadComponent: () => import('./features/mail-settings/unsubscribe-page').then((m) => m.UnsubscribePage),
+  },
+  {
     path: '',
     canActivate: [signedInGuard],
     loadComponent: () => import('./core/shell/app-shell').then((m) => m.AppShell),
@@ -45,6 +52,7 @@ export const routes: Routes = [
         title: 'This Week · Trenchwork',
         loadComponent: () => import('./features/this-week/this-week-page').then((m) => m.ThisWeekPage),
       },
+      ...coachingPointRoutes,
       {
         path: 'film',
         canActivate: [roleGuard(STAFF_ROLES)],
@@ -69,6 +77,46 @@ export const routes: Routes = [
         path: 'staff',
         canActivate: [roleGuard(['admin'])],
         loadChildren: () => import('./features/staff/staff.routes').then((m) => m.staffRoutes),
+      },
+      {
+        // Any member: a player is sent to his own page; the API answers a player for his own only.
+        path: 'progress',
+        loadChildren: () => import('./features/progress/progress.routes').then((m) => m.progressRoutes),
+      },
+      {
+        path: 'readiness',
+        canActivate: [roleGuard(STAFF_ROLES)],
+        loadChildren: () => import('./features/readiness/readiness.routes').then((m) => m.readinessRoutes),
+      },
+      {
+        path: 'depth-chart',
+        canActivate: [roleGuard(STAFF_ROLES)],
+        loadChildren: () => import('./features/depth-chart/depth-chart.routes').then((m) => m.depthChartRoutes),
+      },
+      {
+        path: 'position-battle',
+        canActivate: [roleGuard(STAFF_ROLES)],
+        loadChildren: () => import('./features/position-battle/position-battle.routes').then((m) => m.positionBattleRoutes),
+      },
+      {
+        path: 'calibration',
+        canActivate: [roleGuard(GRADING_ROLES)],
+        loadChildren: () => import('./features/calibration/calibration.routes').then((m) => m.calibrationRoutes),
+      },
+      {
+        path: 'study',
+        canActivate: [roleGuard(['player'])],
+        loadChildren: () => import('./features/study/study.routes').then((m) => m.studyRoutes),
+      },
+      {
+        path: 'cutups',
+        canActivate: [roleGuard(GRADING_ROLES)],
+        loadChildren: () => import('./features/cutups/cutups.routes').then((m) => m.cutupRoutes),
+      },
+      {
+        path: 'settings/mail',
+        title: 'Mail settings · Trenchwork',
+        loadComponent: () => import('./features/mail-settings/mail-settings-page').then((m) => m.MailSettingsPage),
       },
     ],
   },

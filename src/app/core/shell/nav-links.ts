@@ -8,10 +8,18 @@ export interface NavLink {
 
 const LINKS: { link: NavLink; roles: readonly Role[] }[] = [
   { link: { path: '/', label: 'This Week', icon: 'today' }, roles: ['admin', 'coordinator', 'coach', 'analyst', 'player'] },
+  { link: { path: '/study', label: 'Study', icon: 'school' }, roles: ['player'] },
+  { link: { path: '/progress', label: 'My progress', icon: 'insights' }, roles: ['player'] },
   { link: { path: '/film', label: 'Film Library', icon: 'video_library' }, roles: STAFF_ROLES },
   { link: { path: '/grading', label: 'Grading Desk', icon: 'grading' }, roles: GRADING_ROLES },
+  { link: { path: '/cutups', label: 'Cut-ups', icon: 'playlist_play' }, roles: GRADING_ROLES },
+  { link: { path: '/readiness', label: 'Readiness', icon: 'grid_on' }, roles: STAFF_ROLES },
+  { link: { path: '/depth-chart', label: 'Depth Chart', icon: 'format_list_numbered' }, roles: STAFF_ROLES },
+  { link: { path: '/position-battle', label: 'Position Battle', icon: 'compare_arrows' }, roles: STAFF_ROLES },
+  { link: { path: '/calibration', label: 'Calibration', icon: 'balance' }, roles: GRADING_ROLES },
   { link: { path: '/roster', label: 'Roster', icon: 'groups' }, roles: STAFF_ROLES },
   { link: { path: '/staff', label: 'Staff', icon: 'badge' }, roles: ['admin'] },
+  { link: { path: '/settings/mail', label: 'Mail settings', icon: 'mark_email_read' }, roles: ['admin', 'coordinator', 'coach', 'analyst', 'player'] },
 ];
 
 /** The side navigation for a role in the selected team. Route guards enforce the same rule. */

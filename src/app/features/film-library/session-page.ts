@@ -9,7 +9,7 @@ import { Title } from '@angular/platform-browser';
 import { RouterLink } from '@angular/router';
 import { Subject, map, startWith, switchMap } from 'rxjs';
 import type { Clip, FilmSession, Snap, TagListItem } from '@shared/api/film';
-import { ANGLES } from '@shared/film';
+import { ANGLES, ANGLE_LABELS } from '@shared/film';
 import { StatePanel } from '../../core/feedback/state-panel';
 import { inlineErrors } from '../../core/http/inline-errors';
 import { PLAYER_SHORTCUTS } from '../snap-player/player-shortcuts';
@@ -55,6 +55,7 @@ export class SessionPage implements HasRunningUploads {
 
   protected readonly kindLabels = SESSION_KIND_LABELS;
   protected readonly opponentLine = opponentLine;
+  protected readonly angleLabels = ANGLE_LABELS;
 
   protected readonly session = httpResource<FilmSession>(() => ({ url: `/api/film-sessions/${this.sessionId()}`, context: inlineErrors() }));
   protected readonly snapsResource = httpResource<{ snaps: Snap[] }>(() => ({ url: `/api/film-sessions/${this.sessionId()}/snaps`, context: inlineErrors() }));

@@ -1,0 +1,20 @@
+import { Routes } from '@angular/router';
+
+/** The player's film room: his Study Queue, one clip with its points, and cut-ups shared with him. */
+export const studyRoutes: Routes = [
+  {
+    path: '',
+    title: 'Study · Trenchwork',
+    loadComponent: () => import('./study-queue-page').then((m) => m.StudyQueuePage),
+  },
+  {
+    path: 'clips/:clipId',
+    title: 'Clip · Study · Trenchwork',
+    loadComponent: () => import('./study-clip-page').then((m) => m.StudyClipPage),
+  },
+  {
+    path: 'cutups/:cutupId',
+    title: 'Cut-up · Study · Trenchwork',
+    loadComponent: () => import('../cutups/cutup-reel-page').then((m) => m.CutupReelPage),
+  },
+];
