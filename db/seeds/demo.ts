@@ -2,6 +2,8 @@ import { createDatabase, type Database } from '../database';
 import { hashPassword } from '../../server/core/password-hashing';
 import { DEMO_DEPTH_CHART, DEMO_PLAYER, DEMO_ROSTER, DEMO_STAFF, DEMO_TEAM_NAME } from './demo-roster';
 import { generateSeasonFilm, setDepthChart } from './film-and-grades';
+import { seedDemoFilm } from './demo-film';
+import { loadConfig } from '../../server/core/config';
 
 /**
  * Seeds the invented demo program when the database has no team yet (`npm run seed`). Demo accounts
@@ -83,10 +85,24 @@ async function main(): Promise<void> {
   const url = process.env.DATABASE_URL;
   if (!url) throw new Error('DATABASE_URL is not set.');
   if (process.env.NODE_ENV === 'production') throw new Error('The demo seed never runs in production.');
-  const handle = createDatabase(url, { max: 1 });
+  const handle = createDatabase(url, { max: 2 });
   try {
     const seeded = await seedDemo(handle.db, process.env.DEMO_PASSWORD || 'trenchwork-demo');
     console.log(seeded ? `Seeded the demo program "${DEMO_TEAM_NAME}".` : 'Demo data already present; left as it is.');
+    if (seeded) {
+      const db = handle.db;
+      const team = await db.selectFrom('teams').select('id').where('name', '=', DEMO_TEAM_NAME).executeTakeFirstOrThrow();
+      const coach = await db.selectFrom('users').select('id').where('email', '=', 'coach@trenchwork.test').executeTakeFirstOrThrow();
+      const player = await db.selectFrom('memberships').select('player_id').where('team_id', '=', team.id).where('role', '=', 'player').executeTakeFirstOrThrow();
+      const other = await db
+        .selectFrom('roster_entries')
+        .innerJoin('players', 'players.id', 'roster_entries.player_id')
+        .select('players.id')
+        .where('players.team_id', '=', team.id)
+        .where('roster_entries.jersey', '=', 64)
+        .executeTakeFirstOrThrow();
+      console.log(`Demo film: ${await seedDemoFilm(db, loadConfig(), team.id, coach.id, { player: player.player_id!, other: other.id })}.`);
+    }
   } finally {
     await handle.close();
   }
