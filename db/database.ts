@@ -26,6 +26,10 @@ export function createDatabase(connectionString: string, options: { max?: number
   });
   // An idle client losing its connection (database restart) must not crash the process.
   pool.on('error', () => undefined);
+  // Nor may a checked-out one: pg emits 'error' on a client whose connection the server ends between
+  // two queries (a transaction in progress during `pg_ctl stop`), and the pool listens only while
+  // the client is idle. Its next query fails instead, and the pool drops it on release.
+  pool.on('connect', (client) => client.on('error', () => undefined));
   const db = new Kysely<DB>({ dialect: new PostgresDialect({ pool }) });
   return {
     db,

@@ -22,7 +22,11 @@ export function errorHandler(logger: Logger) {
     const requestId = (req as { id?: string }).id ?? randomUUID();
     const send = (status: number, code: string, message: string, extra: Record<string, unknown> = {}) => {
       if (res.headersSent) {
-        res.destroy();
+        // Cut a half-sent answer off, so the client cannot take it for whole. An answer already
+        // complete stays as it is: express-session reports a failed session touch or save after
+        // res.end (the database going away mid-request), and destroying then would only kill the
+        // keep-alive connection under the client's next request.
+        if (!res.writableEnded) res.destroy();
         return;
       }
       res.status(status).set('Cache-Control', 'no-store').json({ error: { code, message, ...extra, requestId } });
@@ -45,9 +49,15 @@ export function errorHandler(logger: Logger) {
     if (pgCode === '22021' || pgCode === '22P05') {
       return send(422, 'validation_failed', 'Some text contains a character that cannot be stored (for example a NUL character).');
     }
+    // 22008 datetime_field_overflow, 22007 invalid_datetime_format: a date that fits the ISO pattern
+    // but not the calendar PostgreSQL keeps (year 0000 has no day at all). Only client dates reach SQL as text.
+    if (pgCode === '22008' || pgCode === '22007') {
+      return send(422, 'validation_failed', 'A date is outside the range that can be stored. Use a date like 2026-09-04.');
+    }
     if (isDatabaseUnavailable(error)) {
       logger.error({ event: 'database_unavailable', requestId, err: error }, 'database unavailable');
-      res.set('Retry-After', '5');
+      // After the answer has gone out (a failed session touch, see send) a header cannot be set: doing so threw here.
+      if (!res.headersSent) res.set('Retry-After', '5');
       return send(503, 'service_unavailable', 'The service is briefly unavailable. Your work is safe; try again in a moment.');
     }
     logger.error({ requestId, err: error, method: req.method, path: req.path }, 'unexpected error');

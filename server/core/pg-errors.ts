@@ -13,5 +13,6 @@ export function isUniqueViolation(error: unknown, constraint?: string): boolean 
 export function isDatabaseUnavailable(error: unknown): boolean {
   const e = error as PgError & { message?: string };
   if (typeof e?.code === 'string' && (e.code.startsWith('08') || ['57P01', '57P02', '57P03', 'ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT'].includes(e.code))) return true;
-  return /Connection terminated|timeout exceeded when trying to connect/i.test(e?.message ?? '');
+  // pg's own wording for a client whose connection broke earlier (see db/database.ts).
+  return /Connection terminated|timeout exceeded when trying to connect|is not queryable/i.test(e?.message ?? '');
 }

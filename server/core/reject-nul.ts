@@ -1,17 +1,27 @@
 import type { NextFunction, Request, Response } from 'express';
 import { validationFailed } from './errors';
 
-/** The first top-level field whose value holds a NUL character anywhere inside, or null. */
+/**
+ * The first top-level field whose value holds a NUL character anywhere inside, or null. Walks with
+ * an explicit stack, not recursion: a deeply nested body (a few kilobytes of "[[[[…") must come back
+ * as bad input, not overflow the call stack into a 500.
+ */
 export function fieldWithNul(value: unknown, field = '_'): string | null {
-  if (typeof value === 'string') return value.includes('\u0000') ? field : null;
-  if (Array.isArray(value)) {
-    for (const item of value) if (fieldWithNul(item, field)) return field;
-    return null;
-  }
-  if (value && typeof value === 'object') {
-    for (const [key, inner] of Object.entries(value)) {
-      const found = fieldWithNul(inner, field === '_' ? key : field);
-      if (found) return found;
+  // [value, the field it counts for, inside an array (an array's items all count for its field)]
+  const pending: [unknown, string, boolean][] = [[value, field, false]];
+  while (pending.length > 0) {
+    const [current, name, inArray] = pending.pop()!;
+    if (typeof current === 'string') {
+      if (current.includes('\u0000')) return name;
+    } else if (Array.isArray(current)) {
+      // Pushed in reverse so items are looked at in order, as a recursive walk would.
+      for (let i = current.length - 1; i >= 0; i -= 1) pending.push([current[i], name, true]);
+    } else if (current && typeof current === 'object') {
+      const entries = Object.entries(current);
+      for (let i = entries.length - 1; i >= 0; i -= 1) {
+        const [key, inner] = entries[i]!;
+        pending.push([inner, name === '_' && !inArray ? key : name, inArray]);
+      }
     }
   }
   return null;

@@ -1,8 +1,9 @@
 import connectPgSimple from 'connect-pg-simple';
-import type { NextFunction, Request, Response } from 'express';
+import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import session from 'express-session';
 import type pg from 'pg';
 import type { Config } from './config';
+import type { Logger } from './logger';
 
 /** The session cookie's name: `__Host-` prefixed when served over https (no Domain, Path=/, Secure). */
 export function sessionCookieName(config: Config): string {
@@ -15,7 +16,7 @@ export function sessionCookieName(config: Config): string {
  * for hours). Absolute timeout: `loginAt` in the session, checked by `enforceAbsoluteTimeout`
  * (default 14 h: one long Sunday).
  */
-export function createSessionMiddleware(config: Config, pool: pg.Pool) {
+export function createSessionMiddleware(config: Config, pool: pg.Pool, logger?: Logger): RequestHandler {
   const PgStore = connectPgSimple(session);
   const store = new PgStore({
     pool,
@@ -23,7 +24,7 @@ export function createSessionMiddleware(config: Config, pool: pg.Pool) {
     createTableIfMissing: false,
     pruneSessionInterval: config.env === 'test' ? false : 15 * 60,
   });
-  return session({
+  const middleware = session({
     name: sessionCookieName(config),
     secret: config.sessionSecret,
     store,
@@ -39,6 +40,21 @@ export function createSessionMiddleware(config: Config, pool: pg.Pool) {
       path: '/',
     },
   });
+  // express-session calls next a second time when touching or saving the session fails after the
+  // answer went out (the database going away mid-request). Passed on, that error found no handler
+  // left and Express's final handler destroyed the socket under the client's next keep-alive
+  // request. The client has its answer: log the failure and keep the connection.
+  return (req, res, next) => {
+    let passedOn = false;
+    middleware(req, res, (error?: unknown) => {
+      if (passedOn) {
+        if (error) logger?.warn({ event: 'session_store_failed', err: error }, 'session store failed after the answer was sent');
+        return;
+      }
+      passedOn = true;
+      next(error);
+    });
+  };
 }
 
 export function enforceAbsoluteTimeout(config: Config, now: () => Date) {

@@ -1,5 +1,5 @@
 import type { AppContext } from '../core/context';
-import { notFound } from '../core/errors';
+import { notFound, validationFailed } from '../core/errors';
 
 export async function listGoals(app: AppContext, playerId: number) {
   const rows = await app.db
@@ -12,8 +12,14 @@ export async function listGoals(app: AppContext, playerId: number) {
   return rows.map((r) => ({ id: r.id, component: r.component, target: Number(r.target), dueOn: r.due_on, note: r.note, achievedAt: r.achieved_at?.toISOString() ?? null, setBy: r.name, createdAt: r.created_at.toISOString() }));
 }
 
+/** The column is numeric(4,3) with CHECK (target > 0): a tiny positive target would round to 0.000 and break it. */
+function storableTarget(target: number): number {
+  if (target < 0.0005) throw validationFailed('A target rate must be at least 0.001 (0.1 %).', { target: 'Use at least 0.001.' });
+  return target;
+}
+
 export async function addGoal(app: AppContext, userId: number, playerId: number, input: { component: string; target: number; dueOn?: string; note?: string }) {
-  await app.db.insertInto('player_goals').values({ player_id: playerId, component: input.component, target: input.target, due_on: input.dueOn ?? null, note: input.note ?? null, set_by: userId }).execute();
+  await app.db.insertInto('player_goals').values({ player_id: playerId, component: input.component, target: storableTarget(input.target), due_on: input.dueOn ?? null, note: input.note ?? null, set_by: userId }).execute();
   return { goals: await listGoals(app, playerId) };
 }
 
@@ -22,7 +28,7 @@ export async function updateGoal(app: AppContext, playerId: number, goalId: numb
   if (!goal) throw notFound('That goal');
   const values = {
     ...(change.achieved !== undefined ? { achieved_at: change.achieved ? app.now() : null } : {}),
-    ...(change.target !== undefined ? { target: change.target } : {}),
+    ...(change.target !== undefined ? { target: storableTarget(change.target) } : {}),
     ...(change.dueOn !== undefined ? { due_on: change.dueOn } : {}),
     ...(change.note !== undefined ? { note: change.note } : {}),
   };

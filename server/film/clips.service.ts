@@ -277,7 +277,11 @@ export async function streamClipMedia(app: AppContext, req: Request, res: Respon
     const status = (error as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode;
     if (status === 416) {
       const head = await app.storage.head(key);
-      res.status(416).set('Content-Range', `bytes */${head?.size ?? 0}`).end();
+      // The same JSON error shape as every other refusal; a media element reads only the status and Content-Range.
+      res
+        .status(416)
+        .set('Content-Range', `bytes */${head?.size ?? 0}`)
+        .json({ error: { code: 'bad_request', message: 'The requested byte range is outside the file.', requestId: (req as { id?: string }).id } });
       return;
     }
     if (status === 404) throw notFound(`The ${variant} of that clip`);

@@ -106,7 +106,7 @@ export async function prepareLoadTarget(db: Database, options: { clients: number
 }
 
 /** Cookies and the CSRF echo of one signed-in browser, over fetch. */
-class Browser {
+export class Browser {
   private readonly cookies = new Map<string, string>();
 
   constructor(private readonly baseUrl: string) {}
