@@ -63,7 +63,7 @@ interface QueryCase {
 
 export async function run(options: BenchOptions): Promise<BenchResult[]> {
   const shape = options.quick ? QUICK_PROGRAM : FULL_PROGRAM;
-  const samples = options.quick ? 8 : 30;
+  const samples = options.quick ? 5 : 30;
   return withBenchStack((stack) => measure(stack, options.quick, shape, samples));
 }
 

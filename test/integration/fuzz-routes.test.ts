@@ -30,7 +30,7 @@ import { makeClip } from '../support/media-fixtures';
 import { startTestApp, type TestApp } from '../support/test-app';
 import { ApiClient } from '../support/api-client';
 
-const RUNS = Number(process.env.TW_FUZZ_RUNS ?? 30);
+const RUNS = Number(process.env.TW_FUZZ_RUNS ?? 25);
 // About 0.3 s per route and run at worst, sign-ins and shrinking included.
 jest.setTimeout(Math.max(240_000, RUNS * 100 * 300));
 const SEED = process.env.TW_FUZZ_SEED ? Number(process.env.TW_FUZZ_SEED) : Date.now() ^ (Math.random() * 0x7fffffff);

@@ -261,8 +261,10 @@ export async function runLoadMix(baseUrl: string, db: Database, target: LoadTarg
     ? await db.selectFrom('grades').select(['snap_id', 'player_id', 'grader_id', 'version']).where('grader_id', 'in', graderIds).execute()
     : [];
   const storedVersions = new Map(stored.map((g) => [`${g.snap_id}:${g.player_id}:${g.grader_id}`, g.version]));
+  // Only this round's graders: an earlier round (a warm-up) may have had more clients.
+  const inRound = new Set(graderIds.map(String));
   let gradeMismatches = 0;
-  for (const [key, version] of told) if (storedVersions.get(key) !== version) gradeMismatches += 1;
+  for (const [key, version] of told) if (inRound.has(key.split(':')[2]!) && storedVersions.get(key) !== version) gradeMismatches += 1;
   for (const key of storedVersions.keys()) if (!told.has(key)) gradeMismatches += 1;
 
   const byKind = Object.fromEntries(
