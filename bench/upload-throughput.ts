@@ -118,7 +118,7 @@ async function measure(stack: BenchStack, bytes: number, rounds: number): Promis
         value: (worst.rssMax - worst.rssBefore) / MiB,
         unit: 'MiB',
         goal: '< 64',
-        note: `largest over ${rounds} upload(s): VmRSS ${mib(worst.rssBefore)} MiB before, peak ${mib(worst.rssMax)} MiB (${worst.samples} samples, every 100 ms)`,
+        note: `largest over ${rounds} upload(s) (each: ${apiRounds.map((r) => mib(r.rssMax - r.rssBefore)).join(', ')} MiB): VmRSS ${mib(worst.rssBefore)} MiB before, peak ${mib(worst.rssMax)} MiB (${worst.samples} samples, every 100 ms)`,
       },
     ];
   } finally {

@@ -29,6 +29,24 @@ export interface QueueOptions {
   maintenanceSeconds?: number;
 }
 
+/**
+ * Creates or updates one queue. Several processes starting at once (API replicas, workers) race
+ * here: a deadlock or a duplicate from the other process is retried, and then the queue exists.
+ */
+async function ensureQueue(boss: PgBoss, queue: PgBoss.Queue): Promise<void> {
+  for (let attempt = 1; ; attempt += 1) {
+    try {
+      if (await boss.getQueue(queue.name)) await boss.updateQueue(queue.name, queue);
+      else await boss.createQueue(queue.name, queue);
+      return;
+    } catch (error) {
+      const code = (error as { code?: string }).code;
+      if (attempt >= 5 || (code !== '40P01' && code !== '23505' && code !== '40001')) throw error;
+      await new Promise((resolve) => setTimeout(resolve, 50 + Math.random() * 200 * attempt));
+    }
+  }
+}
+
 export function createJobQueue(connectionString: string, options: QueueOptions = {}): JobQueue {
   const policies = options.policies ?? JOB_POLICIES;
   const boss = new PgBoss({
@@ -49,11 +67,7 @@ export function createJobQueue(connectionString: string, options: QueueOptions =
       await boss.start();
       // Dead-letter queues first: a queue can only name one that exists.
       const ordered = [...JOB_NAMES].sort((a, b) => Number(Boolean(policies[a].deadLetter)) - Number(Boolean(policies[b].deadLetter)));
-      for (const name of ordered) {
-        const queue = { name, ...policies[name] };
-        if (await boss.getQueue(name)) await boss.updateQueue(name, queue);
-        else await boss.createQueue(name, queue);
-      }
+      for (const name of ordered) await ensureQueue(boss, { name, ...policies[name] });
       started = true;
     },
     async stop() {

@@ -39,12 +39,10 @@ describe('probabilityRateHigher (Beta(1, 1) priors)', () => {
     expect(Math.abs(probabilityRateHigher(pA, mA, pB, mB) - integrated(pA + 1, mA + 1, pB + 1, mB + 1))).toBeLessThan(1e-6);
   });
 
-  test('large samples (thousands of snaps) still agree with integration and stay fast', () => {
+  // Speed is measured in bench/, never asserted here (a busy machine must not fail the build).
+  test('large samples (thousands of snaps) still agree with integration', () => {
     const exact = probabilityRateHigher(2600, 1900, 2500, 2000);
     expect(Math.abs(exact - integrated(2601, 1901, 2501, 2001))).toBeLessThan(1e-6);
-    const started = performance.now();
-    for (let i = 0; i < 200; i++) probabilityRateHigher(3000 + i, 2000, 2900, 2100);
-    expect(performance.now() - started).toBeLessThan(1000); // about 0.2 ms each on the dev machine
   });
 
   test('closed forms: one side with no snaps is uniform, so P(A > B) = E[B-complement]', () => {
