@@ -44,7 +44,7 @@ interface ApiRound {
 
 export async function run(options: BenchOptions): Promise<BenchResult[]> {
   const bytes = options.quick ? 128 * MiB : 1 * GiB;
-  const rounds = options.quick ? 1 : 3;
+  const rounds = 3;
   return withBenchStack((stack) => measure(stack, bytes, rounds), { serverEnv: { MAX_UPLOAD_BYTES: String(bytes + 64 * MiB) } });
 }
 

@@ -63,8 +63,10 @@ export async function withBenchStack<T>(fn: (stack: BenchStack) => Promise<T>, o
       ipc: true,
     });
     children.push(s3Child);
-    const [s3Ready, started] = await Promise.all([s3Child.waitForReady<{ port: number }>(30_000), startCluster(runDir, socketDir)]);
-    cluster = started;
+    // Recorded as soon as it runs, so the teardown stops it even when the S3 fake fails meanwhile.
+    const clusterReady = startCluster(runDir, socketDir).then((started) => (cluster = started));
+    const [s3Ready] = await Promise.all([s3Child.waitForReady<{ port: number }>(30_000), clusterReady]);
+    if (!cluster) throw new Error('PostgreSQL did not start');
     const [appPort] = await freePorts(1);
     const appUrl = `http://127.0.0.1:${appPort}`;
     const s3 = s3Settings({}, s3Ready.port);
@@ -120,6 +122,7 @@ async function startCluster(runDir: string, socketDir: string): Promise<Postgres
       await cluster.ensureDatabase(DATABASE);
       return cluster;
     } catch (error) {
+      await cluster.stop('immediate').catch(() => undefined);
       if (!(error instanceof PortInUseError) || attempt >= 3) throw error;
     }
   }
