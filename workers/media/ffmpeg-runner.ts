@@ -58,7 +58,7 @@ export async function run(command: FfmpegCommand, options: RunOptions): Promise<
     command.inputs.forEach((input, i) => {
       cmd.input(input.url);
       // Global options go first, before the first input: ffmpeg reads them anywhere, and this keeps
-      // the spawned argv identical to toArgs(command).
+      // the spawned argv identical to toArgs(command) (except that fluent-ffmpeg adds a second -y when the output is "-").
       addOptions((...o) => cmd.inputOptions(...o), i === 0 ? [...command.globalOptions, ...input.options] : input.options);
     });
     cmd.output(command.output);
