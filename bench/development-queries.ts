@@ -11,8 +11,8 @@
  *   api:      N sequential GETs over HTTP on 127.0.0.1 as a signed-in coach (session cookie), timed
  *             from request to the whole JSON body (fetch). Includes session, authorization, every
  *             query the route runs (server/development/*) and the statistics in TypeScript.
- *   hand SQL: the same aggregates written by hand (final grade per snap and player picked inside
- *             the season first, then counted), run by `psql -X -A -t -f -`; the baseline is the sum
+ *   hand SQL: the same aggregates written by hand (the season's final grades, by their stored
+ *             flag, then counted), run by `psql -X -A -t -f -`; the baseline is the sum
  *             of psql's \timing figures for the statements (send → last row received, no process
  *             start or connect). The wall time of the whole psql process and of `SELECT 1` (the
  *             process start + connect overhead) are reported beside it.
@@ -255,23 +255,18 @@ async function buildCases(pool: pg.Pool, program: GeneratedProgram): Promise<Que
 }
 
 /**
- * The final grade of each snap and player, picked by hand inside the season (and for the players
- * asked) before anything is counted: the designated grader role's grade wins, else the earliest,
- * the rule of the final_grades view (db/migrations/…_grading.ts).
+ * The final grade of each snap and player inside the season (and for the players asked), read by
+ * hand from the stored flag that triggers keep current (db/migrations/…_final_grade_flag.ts):
+ * what a DBA would write against this schema.
  */
 function finalGrades(teamId: number, seasonId: number, players: number[] | undefined, columns: string): string {
   const ints = (ids: number[]) => ids.map((id) => String(Math.trunc(id))).join(',');
-  return `WITH designated AS MATERIALIZED (
-    SELECT coalesce((SELECT designated_grader_role FROM grading_schemes WHERE team_id = ${Math.trunc(teamId)} ORDER BY version DESC LIMIT 1), 'coordinator') AS role),
-  fg AS (
-    SELECT DISTINCT ON (g.snap_id, g.player_id) ${columns}
+  return `WITH fg AS (
+    SELECT ${columns}
     FROM film_sessions fs
     JOIN snaps s ON s.session_id = fs.id
-    JOIN grades g ON g.snap_id = s.id
-    CROSS JOIN designated d
-    LEFT JOIN memberships m ON m.user_id = g.grader_id AND m.team_id = fs.team_id
-    WHERE fs.team_id = ${Math.trunc(teamId)} AND fs.season_id = ${Math.trunc(seasonId)}${players ? ` AND g.player_id IN (${ints(players)})` : ''}
-    ORDER BY g.snap_id, g.player_id, (m.role IS NOT DISTINCT FROM d.role) DESC, g.created_at, g.id)`;
+    JOIN grades g ON g.snap_id = s.id AND g.is_final
+    WHERE fs.team_id = ${Math.trunc(teamId)} AND fs.season_id = ${Math.trunc(seasonId)}${players ? ` AND g.player_id IN (${ints(players)})` : ''})`;
 }
 
 /** One psql process running the statements with \timing; markers separate their rows. */

@@ -246,9 +246,11 @@ export interface GradesTable {
   version: Generated<number>;
   created_at: Timestamp;
   updated_at: Timestamp;
+  /** Kept by triggers (migration 20261204T000000_final_grade_flag): this grade is the one reports count. */
+  is_final: ColumnType<boolean, never, never>;
 }
 
-/** The final grade per snap and player (view; see the grading migration). */
+/** The final grade per snap and player (view over grades where is_final; see the final-grade flag migration). */
 export interface FinalGradesView extends GradesTable {
   session_id: number;
 }
