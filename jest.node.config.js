@@ -7,5 +7,4 @@ module.exports = {
   testMatch: ['**/*.spec.ts', '**/*.test.ts'],
   transform: { '^.+\\.ts$': ['ts-jest', { tsconfig: '<rootDir>/tsconfig.server.json', diagnostics: { warnOnly: false } }] },
   moduleNameMapper: { '^@shared/(.*)$': '<rootDir>/shared/$1' },
-  testTimeout: 30000,
 };

@@ -18,5 +18,4 @@ module.exports = {
   transformIgnorePatterns: [
     'node_modules/(?!(.*\\.mjs$|d3-|internmap|delaunator|robust-predicates|gradient-path|@swimlane))',
   ],
-  testTimeout: 30000,
 };

@@ -9,5 +9,5 @@ module.exports = {
   testMatch: ['**/*.e2e.ts'],
   transform: { '^.+\\.ts$': ['ts-jest', { tsconfig: '<rootDir>/tsconfig.server.json' }] },
   moduleNameMapper: { '^@shared/(.*)$': '<rootDir>/shared/$1' },
-  testTimeout: 60000,
+  setupFilesAfterEnv: ['<rootDir>/test/e2e/setup-timeout.ts'],
 };
