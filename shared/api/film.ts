@@ -2,6 +2,8 @@ import { z } from 'zod';
 import { ANGLES, CLIP_KINDS, CLIP_STATES, DIRECTIONS, FIELD_SIDES, HASHES, PERSONNEL_PATTERN, SESSION_KINDS, TAG_LIST_KINDS } from '../film';
 import { idSchema, isoDate } from './common';
 
+// A game may be created before its opponent is known (an upload made from the bus on the way home):
+// the API takes it without one; the New session dialog asks for it.
 export const filmSessionCreateSchema = z
   .object({
     teamId: idSchema,
@@ -13,8 +15,7 @@ export const filmSessionCreateSchema = z
     homeAway: z.enum(['home', 'away', 'neutral']).nullish(),
     week: z.number().int().min(0).max(25).nullish(),
     periods: z.array(z.string().trim().min(1).max(60)).max(40).optional(),
-  })
-  .refine((s) => s.kind !== 'game' || !!s.opponent, { message: 'A game needs an opponent.', path: ['opponent'] });
+  });
 export type FilmSessionCreate = z.infer<typeof filmSessionCreateSchema>;
 
 export const filmSessionUpdateSchema = z.object({

@@ -35,13 +35,17 @@ afterAll(async () => {
   if (dir) await rm(dir, { recursive: true, force: true });
 });
 
-test('POST /api/film-sessions answers 201 with an id; a game needs an opponent', async () => {
+test('POST /api/film-sessions answers 201 with an id, with or without an opponent; bad fields are named', async () => {
   const res = await analyst.post('/api/film-sessions', { teamId: team.teamId, kind: 'game', title: 'Week 1', date: '2026-09-04', opponent: 'Stonebridge' });
   expect(res.status).toBe(201);
-  expect(res.body).toMatchObject({ id: expect.any(Number), kind: 'game', title: 'Week 1', seasonId: team.seasonId, snapCount: 0 });
-  const bad = await analyst.post('/api/film-sessions', { teamId: team.teamId, kind: 'game', title: 'Week 2', date: '2026-09-11' });
+  expect(res.body).toMatchObject({ id: expect.any(Number), kind: 'game', title: 'Week 1', seasonId: team.seasonId, snapCount: 0, opponent: 'Stonebridge' });
+  // The contract's minimal body: the opponent can be filled in later.
+  const minimal = await analyst.post('/api/film-sessions', { teamId: team.teamId, kind: 'game', title: 'Week 2', date: '2026-09-11' });
+  expect(minimal.status).toBe(201);
+  expect(minimal.body).toMatchObject({ id: expect.any(Number), kind: 'game', opponent: null });
+  const bad = await analyst.post('/api/film-sessions', { teamId: team.teamId, kind: 'game', title: '', date: '2026-13-11' });
   expect(bad.status).toBe(422);
-  expect(bad.body.error.fields).toHaveProperty('opponent');
+  expect(bad.body.error.fields).toEqual(expect.objectContaining({ title: expect.any(String), date: expect.any(String) }));
 });
 
 describe('per-snap clips from two angles', () => {
