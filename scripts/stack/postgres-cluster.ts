@@ -1,5 +1,5 @@
 import { spawn } from 'node:child_process';
-import { appendFileSync, chownSync, existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { appendFileSync, chmodSync, chownSync, existsSync, mkdirSync, mkdtempSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { Client } from 'pg';
@@ -164,6 +164,7 @@ export class PostgresCluster {
     if (!existsSync(logFile)) writeFileSync(logFile, '');
     if (!this.asRoot) return;
     chownToDbUser([dataDir, socketDir, logFile]);
+    for (const path of [dataDir, socketDir, logFile]) openPassageToDbUser(dirname(path));
   }
 
   private runAsDbUser(command: string, args: string[], what: string): Promise<void> {
@@ -191,6 +192,23 @@ export class PostgresCluster {
         }
       });
     });
+  }
+}
+
+/**
+ * The postgres OS user must pass through every folder above its data: a checkout under /root (mode
+ * 700) or made with umask 077 blocks it, and initdb then fails with "Permission denied". Adding the
+ * search bit for others (o+x) lets it pass without letting anyone list those folders; each change
+ * is said once on stderr.
+ */
+function openPassageToDbUser(folder: string): void {
+  for (let dir = folder; ; dir = dirname(dir)) {
+    const { mode } = statSync(dir);
+    if ((mode & 0o001) === 0) {
+      chmodSync(dir, (mode & 0o7777) | 0o001);
+      process.stderr.write(`[stack] gave the ${DB_OS_USER} user passage through ${dir} (chmod o+x, no listing) so PostgreSQL can reach its data\n`);
+    }
+    if (dir === dirname(dir)) return;
   }
 }
 
