@@ -1,6 +1,7 @@
 import { sql } from 'kysely';
-import { rateWithInterval } from '@shared/stats';
+import { linemanResults, rateWithInterval, resultScores, unitGrade, weakestLinkCounts } from '@shared/stats';
 import type { AppContext } from '../core/context';
+import { startersOf } from '../grading/depth-chart.service';
 import { currentScheme } from '../grading/scheme.service';
 import { resolveSeason } from '../teams/teams.service';
 
@@ -60,30 +61,52 @@ export async function readinessMatrix(app: AppContext, teamId: number, seasonId?
   };
 }
 
-/** The line by game: unit grade (snaps every lineman graded plus) and missed assignments by position and reason. */
+/**
+ * The line by game: unit grade (snaps on which every lineman on the field graded plus, by the shared
+ * rule in unitSnapOutcome — the Grade Sheet uses the same), who was the weakest link most often, and
+ * missed assignments by position and reason. The unit numbers come from one row per snap (its listed
+ * linemen and who graded plus or minus), never from every grade.
+ */
 export async function lineDashboard(app: AppContext, teamId: number, seasonId?: number) {
   const season = await resolveSeason(app, teamId, seasonId);
-  const [unit, missed] = await Promise.all([
-    sql<{ session_id: number; title: string; date: string; snaps: number; all_plus: number }>`
-      WITH per_snap AS (
-        SELECT g.session_id, g.snap_id, bool_and(g.result = 'plus') AS all_plus, count(*) AS graded,
-               (SELECT count(*) FROM snap_participants sp WHERE sp.snap_id = g.snap_id) AS listed
-        FROM final_grades g JOIN film_sessions fs ON fs.id = g.session_id
-        WHERE fs.team_id = ${teamId} AND fs.season_id = ${season.id} AND fs.kind = 'game' AND g.result IS NOT NULL
-        GROUP BY g.session_id, g.snap_id)
-      SELECT fs.id AS session_id, fs.title, fs.date::text AS date, count(*)::int AS snaps,
-             count(*) FILTER (WHERE p.all_plus AND p.graded >= greatest(p.listed, 5))::int AS all_plus
-      FROM per_snap p JOIN film_sessions fs ON fs.id = p.session_id
-      GROUP BY fs.id, fs.title, fs.date ORDER BY fs.date`.execute(app.db),
+  const [snapRows, missed, starters, players] = await Promise.all([
+    sql<{ session_id: number; title: string; date: string; listed: number; plus_ids: number[]; minus_ids: number[] }>`
+      SELECT fs.id AS session_id, fs.title, fs.date::text AS date,
+             (SELECT count(*)::int FROM snap_participants sp WHERE sp.snap_id = g.snap_id) AS listed,
+             coalesce(array_agg(g.player_id) FILTER (WHERE g.result = 'plus'), '{}') AS plus_ids,
+             coalesce(array_agg(g.player_id) FILTER (WHERE g.result = 'minus'), '{}') AS minus_ids
+      FROM final_grades g JOIN film_sessions fs ON fs.id = g.session_id
+      WHERE fs.team_id = ${teamId} AND fs.season_id = ${season.id} AND fs.kind = 'game' AND g.result IS NOT NULL
+      GROUP BY fs.id, fs.title, fs.date, g.snap_id
+      ORDER BY fs.date, fs.id`.execute(app.db),
     sql<{ position: string | null; reason: string | null; n: number }>`
       SELECT g.position, g.missed_reason AS reason, count(*)::int AS n
       FROM final_grades g JOIN film_sessions fs ON fs.id = g.session_id
       WHERE fs.team_id = ${teamId} AND fs.season_id = ${season.id} AND g.assignment = 'missed'
       GROUP BY g.position, g.missed_reason ORDER BY n DESC`.execute(app.db),
+    startersOf(app.db, season.id),
+    app.db.selectFrom('players').select(['id', 'name']).where('team_id', '=', teamId).execute(),
   ]);
+  // A snap with no listed linemen was played by the depth chart's starters (as on the Grading Desk).
+  const snaps = snapRows.rows.map((r) => {
+    const plusIds = r.plus_ids.map(Number);
+    const minusIds = r.minus_ids.map(Number);
+    return { ...r, onField: r.listed > 0 ? r.listed : starters.length, graded: plusIds.length + minusIds.length, plus: plusIds.length, plusIds, minusIds };
+  });
+  const games = [...new Map(snaps.map((s) => [s.session_id, s])).values()].map((game) => {
+    const unit = unitGrade(snaps.filter((s) => s.session_id === game.session_id));
+    return { sessionId: game.session_id, title: game.title, date: game.date, snaps: unit.counted, allPlus: unit.allPlus, incomplete: unit.incomplete, rate: unit.rate };
+  });
+  const weakest = weakestLinkCounts(
+    snaps.map((s) => resultScores(linemanResults(s.plusIds, s.minusIds))),
+  );
+  const name = new Map(players.map((p) => [p.id, p.name]));
   return {
     seasonId: season.id,
-    games: unit.rows.map((u) => ({ sessionId: u.session_id, title: u.title, date: u.date, snaps: u.snaps, allPlus: u.all_plus, rate: u.snaps ? u.all_plus / u.snaps : null })),
+    games,
+    weakestLinks: Object.entries(weakest)
+      .map(([id, count]) => ({ playerId: Number(id), name: name.get(Number(id)) ?? `Player ${id}`, snaps: count }))
+      .sort((a, b) => b.snaps - a.snaps || a.name.localeCompare(b.name)),
     missedAssignments: missed.rows.map((m) => ({ position: m.position ?? 'unknown', reason: m.reason ?? 'no reason given', count: m.n })),
   };
 }

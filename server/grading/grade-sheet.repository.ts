@@ -73,6 +73,7 @@ export function snapTotals(db: Database, sessionId: number) {
       'snap_id',
       eb.fn.countAll<number>().filterWhere('result', 'is not', null).as('graded'),
       eb.fn.countAll<number>().filterWhere('result', '=', 'plus').as('plus'),
+      sql<number[]>`coalesce(array_agg(player_id) FILTER (WHERE result = 'plus'), '{}')`.as('plus_player_ids'),
       sql<number[]>`coalesce(array_agg(player_id) FILTER (WHERE result = 'minus'), '{}')`.as('minus_player_ids'),
     ])
     .where('session_id', '=', sessionId)

@@ -2,6 +2,7 @@ import { stringify } from 'csv-stringify/sync';
 import type { GradeSheet, GradeSheetPlayer } from '@shared/api/grading';
 import { BASE_COMPONENTS, COMPONENT_LABELS, plusRate } from '@shared/grading';
 import { defuseCell } from '@shared/csv-cells';
+import { linemanResults, resultScores, unitGrade, unitSnapOutcome, weakestLink } from '@shared/stats';
 import type { AppContext } from '../core/context';
 import { forbidden, notFound } from '../core/errors';
 import type { TeamMembership } from '../core/route';
@@ -15,7 +16,8 @@ const n = (v: unknown) => Number(v ?? 0);
  * One session's grade sheet from the final grades (server/grading: final_grades view): per player
  * snaps, plus rate, each component's plus rate (plus ÷ (plus + minus), not graded counts in neither;
  * for assignment plus = right; for effort a loaf counts as minus), counts and notes; and the unit
- * view: snaps on which every lineman on the field graded plus.
+ * view: snaps on which every lineman on the field graded plus (the shared rule, unitSnapOutcome), with
+ * each snap's weakest link.
  */
 export async function buildGradeSheet(app: AppContext, sessionId: number, viewer: TeamMembership): Promise<GradeSheet> {
   const session = await app.db
@@ -91,20 +93,30 @@ export async function buildGradeSheet(app: AppContext, sessionId: number, viewer
 
   const unitSnaps = participants.map((snap) => {
     const totalsOfSnap = bySnap.find((s) => s.snap_id === snap.snapId);
-    const graded = n(totalsOfSnap?.graded);
-    const plus = n(totalsOfSnap?.plus);
-    // Every lineman on the field graded, and every one of them plus.
-    const allPlus = graded > 0 && graded >= snap.participants.length && plus === graded;
-    return { snapId: snap.snapId, order: snap.order, graded, plus, allPlus, minusPlayerIds: (totalsOfSnap?.minus_player_ids ?? []).map(Number) };
+    const plusPlayerIds = (totalsOfSnap?.plus_player_ids ?? []).map(Number);
+    const minusPlayerIds = (totalsOfSnap?.minus_player_ids ?? []).map(Number);
+    const counts = { onField: snap.participants.length, graded: plusPlayerIds.length + minusPlayerIds.length, plus: plusPlayerIds.length };
+    const outcome = unitSnapOutcome(counts);
+    return {
+      snapId: snap.snapId,
+      order: snap.order,
+      ...counts,
+      counted: outcome !== 'incomplete',
+      allPlus: outcome === 'allPlus',
+      minusPlayerIds,
+      weakestLinkIds: (weakestLink(resultScores(linemanResults(plusPlayerIds, minusPlayerIds)))?.playerIds ?? []).map(Number),
+    };
   });
-  const gradedSnaps = unitSnaps.filter((s) => s.graded > 0);
-  const allPlus = gradedSnaps.filter((s) => s.allPlus).length;
+  const unit = unitGrade(unitSnaps);
   const visible = viewer.role === 'player' ? players.filter((p) => p.playerId === viewer.playerId) : players;
   return {
     sessionId,
     winningThreshold: threshold,
     players: visible,
-    unit: viewer.role === 'player' ? { snaps: 0, allPlus: 0, rate: null, bySnap: [] } : { snaps: gradedSnaps.length, allPlus, rate: gradedSnaps.length ? allPlus / gradedSnaps.length : null, bySnap: unitSnaps },
+    unit:
+      viewer.role === 'player'
+        ? { snaps: 0, allPlus: 0, incomplete: 0, rate: null, bySnap: [] }
+        : { snaps: unit.counted, allPlus: unit.allPlus, incomplete: unit.incomplete, rate: unit.rate, bySnap: unitSnaps },
   };
 }
 

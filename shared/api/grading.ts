@@ -125,10 +125,26 @@ export const gradeSheetSchema = z.object({
   winningThreshold: z.number(),
   players: z.array(gradeSheetPlayerSchema),
   unit: z.object({
+    /** Snaps that count: every lineman on the field graded (shared/stats unitSnapOutcome). */
     snaps: z.number().int(),
     allPlus: z.number().int(),
+    /** Snaps left out until everyone on them is graded. */
+    incomplete: z.number().int(),
     rate: z.number().nullable(),
-    bySnap: z.array(z.object({ snapId: z.number().int(), order: z.number().int(), graded: z.number().int(), plus: z.number().int(), allPlus: z.boolean(), minusPlayerIds: z.array(z.number().int()) })),
+    bySnap: z.array(
+      z.object({
+        snapId: z.number().int(),
+        order: z.number().int(),
+        onField: z.number().int(),
+        graded: z.number().int(),
+        plus: z.number().int(),
+        counted: z.boolean(),
+        allPlus: z.boolean(),
+        minusPlayerIds: z.array(z.number().int()),
+        /** Who lost the snap for a unit that otherwise won it; empty when nobody stands out. */
+        weakestLinkIds: z.array(z.number().int()),
+      }),
+    ),
   }),
 });
 export type GradeSheet = z.infer<typeof gradeSheetSchema>;

@@ -23,6 +23,20 @@ export { studentTCentral, studentTCritical } from './student-t';
 export { readTrend, slopeInterval, weeklyTrend, TREND_RULE, type TrendFit, type TrendReading } from './trend';
 export { rollingAverage, rollingPlusRate } from './rolling';
 export { tallyBySession, tallyByWeek, weekStart, weeksBetween, type DatedTally, type WeekTally } from './series';
-export { allPlusShare, resultScores, weakestLink, weakestLinkCounts, type AllPlusShare, type LinemanResult, type LinemanScore, type WeakestLink } from './unit-grade';
+export {
+  allPlusShare,
+  linemanResults,
+  resultScores,
+  unitGrade,
+  unitSnapOutcome,
+  weakestLink,
+  weakestLinkCounts,
+  type AllPlusShare,
+  type LinemanResult,
+  type LinemanScore,
+  type UnitSnapCounts,
+  type UnitSnapOutcome,
+  type WeakestLink,
+} from './unit-grade';
 export { logGamma, logBeta } from './log-gamma';
 export type { PlusMinus } from './counts';

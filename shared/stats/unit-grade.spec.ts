@@ -1,4 +1,4 @@
-import { allPlusShare, resultScores, weakestLink, weakestLinkCounts, type LinemanResult } from './unit-grade';
+import { allPlusShare, resultScores, unitGrade, unitSnapOutcome, weakestLink, weakestLinkCounts, type LinemanResult } from './unit-grade';
 import { wilsonInterval } from './wilson';
 
 const line = (...results: ('plus' | 'minus' | null)[]): LinemanResult[] =>
@@ -19,6 +19,31 @@ describe('allPlusShare', () => {
 
   test('nothing fully graded → rate null', () => {
     expect(allPlusShare([line(null, 'plus')])).toMatchObject({ counted: 0, rate: null, interval: null });
+  });
+});
+
+describe('unitSnapOutcome and unitGrade (from counts, as the reports have them)', () => {
+  test('a snap counts once everyone on the field is graded; extra graded linemen (a sub) do not make it incomplete', () => {
+    expect(unitSnapOutcome({ onField: 5, graded: 5, plus: 5 })).toBe('allPlus');
+    expect(unitSnapOutcome({ onField: 5, graded: 5, plus: 4 })).toBe('notAllPlus');
+    expect(unitSnapOutcome({ onField: 5, graded: 4, plus: 3 })).toBe('incomplete');
+    expect(unitSnapOutcome({ onField: 5, graded: 6, plus: 6 })).toBe('allPlus');
+    expect(unitSnapOutcome({ onField: 0, graded: 0, plus: 0 })).toBe('incomplete');
+    expect(unitSnapOutcome({ onField: 5, graded: 0, plus: 0 })).toBe('incomplete');
+  });
+
+  test('hand-worked game of six snaps: 2 all-plus of 4 counted, 2 left out', () => {
+    // Counted: snaps 1 (5/5 plus), 2 (4 of 5 plus), 3 (six-man set, 6/6 plus), 6 (5 of 5 graded, 3 plus).
+    // Left out: snap 4 (4 of 5 graded), snap 5 (nobody on the field known).
+    const game = [
+      { onField: 5, graded: 5, plus: 5 },
+      { onField: 5, graded: 5, plus: 4 },
+      { onField: 6, graded: 6, plus: 6 },
+      { onField: 5, graded: 4, plus: 4 },
+      { onField: 0, graded: 0, plus: 0 },
+      { onField: 5, graded: 5, plus: 3 },
+    ];
+    expect(unitGrade(game)).toEqual({ allPlus: 2, counted: 4, incomplete: 2, rate: 0.5, interval: wilsonInterval(2, 4) });
   });
 });
 

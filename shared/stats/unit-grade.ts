@@ -17,18 +17,37 @@ export interface AllPlusShare {
   interval: Interval | null;
 }
 
+/** What a report knows of one snap for the unit grade: how many linemen were on the field, graded, plus. */
+export interface UnitSnapCounts {
+  /** The snap's listed linemen, or else the depth chart's starters: who should have a grade. */
+  onField: number;
+  /** Linemen with a final result on the snap. */
+  graded: number;
+  plus: number;
+}
+
+export type UnitSnapOutcome = 'allPlus' | 'notAllPlus' | 'incomplete';
+
 /**
- * Share of snaps on which the whole unit won: every lineman on the field graded plus. Only fully
- * graded snaps count — counting a half-graded snap when it already has a minus, but not when it has
- * none, would pull the share down while grading is in progress.
+ * The one rule for a snap's unit result, used by every screen that shows a unit grade (Grade Sheet,
+ * line dashboard): a snap counts only once every lineman on the field has a result — counting a
+ * half-graded snap when it already has a minus, but not when it has none, would pull the share down
+ * while grading is in progress — and it is all-plus when every graded lineman on it is plus.
  */
-export function allPlusShare(snaps: readonly (readonly LinemanResult[])[]): AllPlusShare {
+export function unitSnapOutcome(snap: UnitSnapCounts): UnitSnapOutcome {
+  if (snap.onField === 0 || snap.graded === 0 || snap.graded < snap.onField) return 'incomplete';
+  return snap.plus === snap.graded ? 'allPlus' : 'notAllPlus';
+}
+
+/** Share of snaps on which the whole unit won, over the snaps that count (see unitSnapOutcome). */
+export function unitGrade(snaps: readonly UnitSnapCounts[]): AllPlusShare {
   let allPlus = 0;
   let counted = 0;
   for (const snap of snaps) {
-    if (snap.length === 0 || snap.some((g) => g.result === null)) continue;
+    const outcome = unitSnapOutcome(snap);
+    if (outcome === 'incomplete') continue;
     counted++;
-    if (snap.every((g) => g.result === 'plus')) allPlus++;
+    if (outcome === 'allPlus') allPlus++;
   }
   return {
     allPlus,
@@ -37,6 +56,17 @@ export function allPlusShare(snaps: readonly (readonly LinemanResult[])[]): AllP
     rate: counted === 0 ? null : allPlus / counted,
     interval: wilsonInterval(allPlus, counted),
   };
+}
+
+/** The unit grade from each lineman's result per snap (everyone listed is on the field). */
+export function allPlusShare(snaps: readonly (readonly LinemanResult[])[]): AllPlusShare {
+  return unitGrade(
+    snaps.map((snap) => ({
+      onField: snap.length,
+      graded: snap.filter((g) => g.result !== null).length,
+      plus: snap.filter((g) => g.result === 'plus').length,
+    })),
+  );
 }
 
 /** One lineman's score on one snap, higher is better (1/0 for plus/minus, or a points total). */
@@ -72,6 +102,11 @@ export function weakestLinkCounts(snaps: readonly (readonly LinemanScore[])[]): 
     for (const id of weakestLink(snap)?.playerIds ?? []) counts[id] = (counts[id] ?? 0) + 1;
   }
   return counts;
+}
+
+/** Each lineman's result on a snap from the ids of those who graded plus and those who graded minus. */
+export function linemanResults(plusIds: readonly number[], minusIds: readonly number[]): LinemanResult[] {
+  return [...plusIds.map((id) => ({ playerId: String(id), result: 'plus' as const })), ...minusIds.map((id) => ({ playerId: String(id), result: 'minus' as const }))];
 }
 
 /** Plus/minus results as scores (plus 1, minus 0, not graded null) for `weakestLink`. */

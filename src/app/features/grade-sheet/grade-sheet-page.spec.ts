@@ -68,6 +68,10 @@ describe('GradeSheetPage', () => {
     expect(unit).toContain('✓ all plus');
     expect(unit).toContain('✗ not all plus');
     expect(unit).toContain('#55 Eli Brandt');
+    // Snap 2: five of five graded, four plus; the one minus is the weakest link.
+    const snap2 = Array.from(element().querySelectorAll('tw-unit-sheet tbody tr'))[1]!;
+    const cells = Array.from(snap2.querySelectorAll('td')).map((c) => c.textContent?.trim());
+    expect(cells).toEqual(['5 of 5', '4', '✗ not all plus', '#55 Eli Brandt', '#55 Eli Brandt']);
   });
 
   it('has a CSV link and a print stylesheet that hides the app around the sheet', () => {

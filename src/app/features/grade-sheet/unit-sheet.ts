@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { GradeSheet } from '@shared/api/grading';
 import { formatRate } from './sheet-format';
 
-/** The whole line, snap by snap: all plus, or who graded minus. */
+/** The whole line, snap by snap: all plus, or who graded minus and who was the weakest link. */
 @Component({
   selector: 'tw-unit-sheet',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -12,23 +12,30 @@ import { formatRate } from './sheet-format';
       <h2 id="unit-title">Whole line</h2>
       <p class="headline">
         <span class="big">{{ rate(u.rate) }}</span>
-        <span>of snaps with every lineman plus ({{ u.allPlus }} of {{ u.snaps }} graded snaps)</span>
+        <span>of snaps with every lineman plus ({{ u.allPlus }} of {{ u.snaps }} fully graded snaps)</span>
       </p>
+      @if (u.incomplete > 0) {
+        <p class="hint">{{ u.incomplete }} {{ u.incomplete === 1 ? 'snap waits' : 'snaps wait' }} for every lineman on the field to be graded before it counts.</p>
+      }
       <table>
         <thead>
-          <tr><th scope="col">Snap</th><th scope="col">Graded</th><th scope="col">+ plus</th><th scope="col">Line</th><th scope="col">Minus from</th></tr>
+          <tr>
+            <th scope="col">Snap</th><th scope="col">Graded</th><th scope="col">+ plus</th><th scope="col">Line</th><th scope="col">Minus from</th>
+            <th scope="col">Weakest link</th>
+          </tr>
         </thead>
         <tbody>
           @for (s of rows(); track s.snapId) {
             <tr [attr.data-all-plus]="s.allPlus">
               <th scope="row">{{ s.order }}</th>
-              <td>{{ s.graded }}</td>
+              <td>{{ s.graded }} of {{ s.onField }}</td>
               <td>{{ s.plus }}</td>
-              <td>{{ s.graded === 0 ? '○ not graded' : s.allPlus ? '✓ all plus' : '✗ not all plus' }}</td>
+              <td>{{ s.graded === 0 ? '○ not graded' : !s.counted ? '… grading' : s.allPlus ? '✓ all plus' : '✗ not all plus' }}</td>
               <td>{{ s.minusNames || '—' }}</td>
+              <td>{{ s.weakestNames || '—' }}</td>
             </tr>
           } @empty {
-            <tr><td colspan="5">No snaps graded yet.</td></tr>
+            <tr><td colspan="6">No snaps graded yet.</td></tr>
           }
         </tbody>
       </table>
@@ -50,6 +57,10 @@ import { formatRate } from './sheet-format';
       display: flex;
       gap: 12px;
       align-items: baseline;
+    }
+    .hint {
+      font: var(--mat-sys-body-small);
+      margin: 0 0 8px;
     }
     .big {
       font: var(--mat-sys-headline-small);
@@ -78,8 +89,7 @@ export class UnitSheet {
   protected readonly rows = computed(() => {
     const sheet = this.sheet();
     const names = new Map(sheet.players.map((p) => [p.playerId, p.jersey !== null ? `#${p.jersey} ${p.name}` : p.name]));
-    return [...sheet.unit.bySnap]
-      .sort((a, b) => a.order - b.order)
-      .map((s) => ({ ...s, minusNames: s.minusPlayerIds.map((id) => names.get(id) ?? `Player ${id}`).join(', ') }));
+    const named = (ids: number[]) => ids.map((id) => names.get(id) ?? `Player ${id}`).join(', ');
+    return [...sheet.unit.bySnap].sort((a, b) => a.order - b.order).map((s) => ({ ...s, minusNames: named(s.minusPlayerIds), weakestNames: named(s.weakestLinkIds) }));
   });
 }

@@ -138,10 +138,11 @@ export function gradeSheet(players: GradeSheetPlayer[]): GradeSheet {
     unit: {
       snaps: 2,
       allPlus: 1,
+      incomplete: 0,
       rate: 0.5,
       bySnap: [
-        { snapId: 21, order: 1, graded: 5, plus: 5, allPlus: true, minusPlayerIds: [] },
-        { snapId: 22, order: 2, graded: 5, plus: 4, allPlus: false, minusPlayerIds: [13] },
+        { snapId: 21, order: 1, onField: 5, graded: 5, plus: 5, counted: true, allPlus: true, minusPlayerIds: [], weakestLinkIds: [] },
+        { snapId: 22, order: 2, onField: 5, graded: 5, plus: 4, counted: true, allPlus: false, minusPlayerIds: [13], weakestLinkIds: [13] },
       ],
     },
   };

@@ -79,6 +79,14 @@ describe('ReadinessPage', () => {
     ]);
   });
 
+  it('names who was the weakest link most often', () => {
+    const rows = Array.from(element().querySelectorAll('[data-testid=weakest-links] tbody tr'), (tr) => Array.from(tr.children, (c) => c.textContent?.trim()));
+    expect(rows).toEqual([
+      ['Odran Pike', '9'],
+      ['Teodor Vance', '4'],
+    ]);
+  });
+
   it('draws the unit grade by game with a numbers table a click away', async () => {
     const unit = element().querySelector('tw-unit-grade-chart') as HTMLElement;
     expect(unit.querySelector('ngx-charts-bar-horizontal')).not.toBeNull();

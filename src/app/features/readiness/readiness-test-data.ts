@@ -44,8 +44,12 @@ export function lineDashboard(): LineDashboard {
   return {
     seasonId: 5,
     games: [
-      { sessionId: 31, title: 'Week 1 vs Carrow Ridge', date: '2026-09-04', snaps: 60, allPlus: 27, rate: 0.45 },
-      { sessionId: 33, title: 'Week 2 at Fenmoor', date: '2026-09-11', snaps: 55, allPlus: 33, rate: 0.6 },
+      { sessionId: 31, title: 'Week 1 vs Carrow Ridge', date: '2026-09-04', snaps: 60, allPlus: 27, incomplete: 0, rate: 0.45 },
+      { sessionId: 33, title: 'Week 2 at Fenmoor', date: '2026-09-11', snaps: 55, allPlus: 33, incomplete: 2, rate: 0.6 },
+    ],
+    weakestLinks: [
+      { playerId: 12, name: 'Odran Pike', snaps: 9 },
+      { playerId: 14, name: 'Teodor Vance', snaps: 4 },
     ],
     missedAssignments: [
       { position: 'RG', reason: 'wrong gap or man', count: 4 },

@@ -28,6 +28,9 @@ export interface Readiness {
 /** GET /api/teams/{teamId}/line-dashboard. */
 export interface LineDashboard {
   seasonId: number;
-  games: { sessionId: number; title: string; date: string; snaps: number; allPlus: number; rate: number | null }[];
+  /** snaps: fully graded snaps (every lineman on the field graded); incomplete: snaps still waiting. */
+  games: { sessionId: number; title: string; date: string; snaps: number; allPlus: number; incomplete: number; rate: number | null }[];
+  /** Who lost a snap the rest of the line won, most often first. */
+  weakestLinks: { playerId: number; name: string; snaps: number }[];
   missedAssignments: { position: string; reason: string; count: number }[];
 }
