@@ -1,4 +1,5 @@
 import { ROLE_LABELS, type Role } from '@shared/roles';
+import { SAFETY_POINTS, SAFETY_TEXT } from '@shared/safety';
 import type { MailMessage } from '../core/jobs';
 
 /** Escapes text for the HTML part of a mail. */
@@ -6,13 +7,16 @@ function escapeHtml(text: string): string {
   return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 }
 
-function layout(paragraphs: string[], link: { href: string; label: string }): string {
+/** The safety caution for mails about coaching and progress; the same words as the app's safety note. */
+const SAFETY_HTML = `<div style="margin:16px 0 0;padding:8px 12px;border-left:3px solid #D99A1E;background:#FBEFD6;font-size:12px;color:#1F2A36"><strong>Safety</strong><ul style="margin:4px 0 0;padding-left:18px">${SAFETY_POINTS.map((p) => `<li>${escapeHtml(p)}</li>`).join('')}</ul></div>`;
+
+function layout(paragraphs: string[], link: { href: string; label: string }, options: { safety?: boolean } = {}): string {
   const body = paragraphs.map((p) => `<p style="margin:0 0 12px">${escapeHtml(p)}</p>`).join('');
   return `<!doctype html><html><body style="font-family:'Open Sans',Arial,sans-serif;color:#1F2A36;background:#F5F3EE;padding:24px">
 <div style="max-width:560px;margin:auto;background:#fff;border-radius:8px;padding:24px">
 <p style="font-weight:700;font-size:18px;margin:0 0 16px">Trenchwork</p>${body}
 <p><a href="${escapeHtml(link.href)}" style="background:#2E6B4F;color:#fff;padding:10px 16px;border-radius:6px;text-decoration:none">${escapeHtml(link.label)}</a></p>
-<p style="font-size:12px;color:#55606b">If the button does not work, copy this address into your browser: ${escapeHtml(link.href)}</p>
+<p style="font-size:12px;color:#55606b">If the button does not work, copy this address into your browser: ${escapeHtml(link.href)}</p>${options.safety ? SAFETY_HTML : ''}
 </div></body></html>`;
 }
 
@@ -80,8 +84,8 @@ export function coachingDigestMail(args: { to: string; playerName: string; point
   return {
     to: args.to,
     subject: `${count} new coaching point${count === 1 ? '' : 's'} on your film`,
-    text: `${intro}\n\n${lines.join('\n\n')}\n\nYour study queue: ${args.queueLink}\n\n${footer}\n`,
-    html: `<!doctype html><html><body style="font-family:'Open Sans',Arial,sans-serif;color:#1F2A36;background:#F5F3EE;padding:24px"><div style="max-width:560px;margin:auto;background:#fff;border-radius:8px;padding:24px"><p style="font-weight:700;font-size:18px;margin:0 0 16px">Trenchwork</p><p>${escapeHtml(intro)}</p><ul style="padding-left:18px">${items}</ul><p><a href="${escapeHtml(args.queueLink)}">Open your study queue</a></p><p style="font-size:12px;color:#55606b">You get at most one of these an hour. <a href="${escapeHtml(args.unsubscribeLink)}">Stop these mails</a>.</p></div></body></html>`,
+    text: `${intro}\n\n${lines.join('\n\n')}\n\nYour study queue: ${args.queueLink}\n\n${SAFETY_TEXT}\n\n${footer}\n`,
+    html: `<!doctype html><html><body style="font-family:'Open Sans',Arial,sans-serif;color:#1F2A36;background:#F5F3EE;padding:24px"><div style="max-width:560px;margin:auto;background:#fff;border-radius:8px;padding:24px"><p style="font-weight:700;font-size:18px;margin:0 0 16px">Trenchwork</p><p>${escapeHtml(intro)}</p><ul style="padding-left:18px">${items}</ul><p><a href="${escapeHtml(args.queueLink)}">Open your study queue</a></p>${SAFETY_HTML}<p style="font-size:12px;color:#55606b">You get at most one of these an hour. <a href="${escapeHtml(args.unsubscribeLink)}">Stop these mails</a>.</p></div></body></html>`,
     purpose: 'coaching_digest',
   };
 }
@@ -91,8 +95,8 @@ export function weeklySummaryMail(args: { to: string; playerName: string; lines:
   return {
     to: args.to,
     subject: 'Your week on film',
-    text: `${intro}\n\n${args.lines.join('\n')}\n\n${args.link}\n\nStop these weekly mails: ${args.unsubscribeLink}\n`,
-    html: layout([intro, ...args.lines, `Stop these weekly mails: ${args.unsubscribeLink}`], { href: args.link, label: 'See your progress' }),
+    text: `${intro}\n\n${args.lines.join('\n')}\n\n${args.link}\n\n${SAFETY_TEXT}\n\nStop these weekly mails: ${args.unsubscribeLink}\n`,
+    html: layout([intro, ...args.lines, `Stop these weekly mails: ${args.unsubscribeLink}`], { href: args.link, label: 'See your progress' }, { safety: true }),
     purpose: 'weekly_summary',
   };
 }

@@ -218,6 +218,8 @@ describe('study report and mail', () => {
     expect(digest.text).toContain('Point 1: hands inside.');
     expect(digest.text).toContain('Point 3: hands inside.');
     expect(digest.html).toContain('Watch this clip');
+    // Coaching points are technique coaching: the mail carries the safety caution too.
+    expect(digest.html).toContain('athletic trainer and physicians decide');
     const link = linkIn(digest, '/study/clips/');
     expect(link).toMatch(new RegExp(`/study/clips/(${clips.join('|')})\\?at=\\d+`));
     // More points within the hour: no second mail now, a digest is waiting for later.
@@ -270,6 +272,7 @@ describe('study report and mail', () => {
     expect(mails[0]!.text).toContain('Plus rate, newest first');
     expect(mails[0]!.text).toMatch(/Week 6 vs Granite Fork: 100 % of 1 snaps/);
     expect(mails[0]!.html).toContain('Stop these weekly mails');
+    expect(mails[0]!.html).toContain('athletic trainer and physicians decide');
     expect(linkIn(mails[0]!, '/mail/unsubscribe')).toContain('token=');
   });
 });

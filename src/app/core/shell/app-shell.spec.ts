@@ -40,26 +40,26 @@ describe('AppShell navigation', () => {
   it('gives a player his Study Queue but no Roster or Staff link', async () => {
     const fixture = await render('player');
     const labels = navLabels(fixture);
-    expect(labels).toEqual(['This Week', 'Study', 'My progress', 'Mail settings']);
+    expect(labels).toEqual(['This Week', 'Study Queue', 'Progress', 'Mail settings']);
     expect(labels).not.toContain('Roster');
     expect(labels).not.toContain('Staff');
     expect(labels).not.toContain('Cut-ups');
-    expect(labels).not.toContain('Readiness');
+    expect(labels).not.toContain('Readiness Grid');
   });
 
   it('gives an admin both Roster and Staff', async () => {
     const fixture = await render('admin');
-    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Grading Desk', 'Cut-ups', 'Readiness', 'Depth Chart', 'Position Battle', 'Calibration', 'Roster', 'Staff', 'Mail settings']);
+    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Grading Desk', 'Cut-ups', 'Readiness Grid', 'Depth Chart', 'Position Battle', 'Calibration', 'Roster', 'Staff', 'Mail settings']);
   });
 
   it('gives a position coach the Roster but not Staff', async () => {
     const fixture = await render('coach');
-    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Grading Desk', 'Cut-ups', 'Readiness', 'Depth Chart', 'Position Battle', 'Calibration', 'Roster', 'Mail settings']);
+    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Grading Desk', 'Cut-ups', 'Readiness Grid', 'Depth Chart', 'Position Battle', 'Calibration', 'Roster', 'Mail settings']);
   });
 
   it('adds the dev mailbox only when the API answers for it', async () => {
     const fixture = await render('analyst', 'on');
-    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Readiness', 'Depth Chart', 'Position Battle', 'Roster', 'Mail settings', 'Dev mailbox']);
+    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Readiness Grid', 'Depth Chart', 'Position Battle', 'Roster', 'Mail settings', 'Dev mailbox']);
   });
 
   it('follows the role of the team picked in the switcher', async () => {
@@ -67,7 +67,7 @@ describe('AppShell navigation', () => {
     expect(navLabels(fixture)).not.toContain('Roster');
     TestBed.inject(AuthStore).selectTeam(2);
     await fixture.whenStable();
-    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Grading Desk', 'Cut-ups', 'Readiness', 'Depth Chart', 'Position Battle', 'Calibration', 'Roster', 'Mail settings']);
+    expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Grading Desk', 'Cut-ups', 'Readiness Grid', 'Depth Chart', 'Position Battle', 'Calibration', 'Roster', 'Mail settings']);
     expect(localStorage.getItem('trenchwork.selectedTeamId')).toBe('2');
     expect((fixture.nativeElement as HTMLElement).querySelector('tw-team-switcher')?.textContent).toContain('Ironvale Anvils JV');
   });

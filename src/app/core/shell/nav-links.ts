@@ -8,12 +8,12 @@ export interface NavLink {
 
 const LINKS: { link: NavLink; roles: readonly Role[] }[] = [
   { link: { path: '/', label: 'This Week', icon: 'today' }, roles: ['admin', 'coordinator', 'coach', 'analyst', 'player'] },
-  { link: { path: '/study', label: 'Study', icon: 'school' }, roles: ['player'] },
-  { link: { path: '/progress', label: 'My progress', icon: 'insights' }, roles: ['player'] },
+  { link: { path: '/study', label: 'Study Queue', icon: 'school' }, roles: ['player'] },
+  { link: { path: '/progress', label: 'Progress', icon: 'insights' }, roles: ['player'] },
   { link: { path: '/film', label: 'Film Library', icon: 'video_library' }, roles: STAFF_ROLES },
   { link: { path: '/grading', label: 'Grading Desk', icon: 'grading' }, roles: GRADING_ROLES },
   { link: { path: '/cutups', label: 'Cut-ups', icon: 'playlist_play' }, roles: GRADING_ROLES },
-  { link: { path: '/readiness', label: 'Readiness', icon: 'grid_on' }, roles: STAFF_ROLES },
+  { link: { path: '/readiness', label: 'Readiness Grid', icon: 'grid_on' }, roles: STAFF_ROLES },
   { link: { path: '/depth-chart', label: 'Depth Chart', icon: 'format_list_numbered' }, roles: STAFF_ROLES },
   { link: { path: '/position-battle', label: 'Position Battle', icon: 'compare_arrows' }, roles: STAFF_ROLES },
   { link: { path: '/calibration', label: 'Calibration', icon: 'balance' }, roles: GRADING_ROLES },

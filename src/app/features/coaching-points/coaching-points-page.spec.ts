@@ -130,6 +130,11 @@ describe('CoachingPointsPage', () => {
     expect(thread.querySelector('[aria-label="Remove this point"]')).not.toBeNull();
   });
 
+  it('shows the safety caution beside the points on the clip', async () => {
+    await render('coach');
+    expect(element().querySelector('section.threads tw-safety-note [role=note]')?.textContent).toContain('Safety:');
+  });
+
   it('gives an analyst the threads but no form and no desk request', async () => {
     await render('analyst');
     expect(element().querySelector('tw-point-form')).toBeNull();

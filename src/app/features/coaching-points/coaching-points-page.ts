@@ -11,6 +11,7 @@ import type { PlayerListResponse } from '@shared/api/roster';
 import { ANGLE_LABELS } from '@shared/film';
 import { GRADING_ROLES, type Role } from '@shared/roles';
 import { AuthStore } from '../../core/auth/auth-store';
+import { SafetyNote } from '../../core/feedback/safety-note';
 import { StatePanel } from '../../core/feedback/state-panel';
 import { inlineErrors } from '../../core/http/inline-errors';
 import { PLAYER_SHORTCUTS } from '../snap-player/player-shortcuts';
@@ -37,7 +38,7 @@ const MODERATOR_ROLES: readonly Role[] = ['admin', 'coordinator'];
 @Component({
   selector: 'tw-coaching-points-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [CommentThread, MatButtonModule, MatIconModule, PointForm, PointMarkers, RouterLink, ShortcutList, SnapPlayer, StatePanel],
+  imports: [CommentThread, MatButtonModule, MatIconModule, PointForm, PointMarkers, RouterLink, SafetyNote, ShortcutList, SnapPlayer, StatePanel],
   templateUrl: './coaching-points-page.html',
   styleUrl: './coaching-points-page.scss',
   host: { '(document:keydown)': 'onKey($event)' },

@@ -62,6 +62,10 @@ describe('CutupBuilderPage', () => {
     }, 'the preview');
   }
 
+  it('shows the safety caution over the clips and their notes', () => {
+    expect(element().querySelector('#reel-title + tw-safety-note [role=note]')?.textContent).toContain('Safety:');
+  });
+
   it('asks for nothing until the filter narrows, then previews with exactly the filter chosen', async () => {
     await new Promise((resolve) => setTimeout(resolve, 350));
     expect(http.match('/api/cutups/preview')).toHaveLength(0);

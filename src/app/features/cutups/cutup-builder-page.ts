@@ -12,6 +12,7 @@ import type { PlayerListResponse } from '@shared/api/roster';
 import type { PositionGroup } from '@shared/film-room';
 import { AuthStore } from '../../core/auth/auth-store';
 import { Notifier } from '../../core/feedback/notifier';
+import { SafetyNote } from '../../core/feedback/safety-note';
 import { StatePanel } from '../../core/feedback/state-panel';
 import { applyServerErrors, fieldError } from '../../core/forms/field-errors';
 import { readApiError } from '../../core/http/api-error';
@@ -35,7 +36,7 @@ function optionalId(value: unknown): number | undefined {
 @Component({
   selector: 'tw-cutup-builder-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [CutupFilterPanel, CutupReel, CutupSharePanel, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, ReactiveFormsModule, RouterLink, StatePanel],
+  imports: [CutupFilterPanel, CutupReel, CutupSharePanel, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, ReactiveFormsModule, RouterLink, SafetyNote, StatePanel],
   templateUrl: './cutup-builder-page.html',
   styleUrl: './cutup-builder-page.scss',
 })

@@ -73,4 +73,10 @@ describe('CutupReelPage', () => {
     video().dispatchEvent(new Event('loadedmetadata'));
     expect(play).toHaveBeenCalledTimes(1);
   });
+
+  it('shows the safety caution under the clip notes, outside the announced region', () => {
+    const note = element().querySelector('.watch > tw-safety-note [role=note]');
+    expect(note?.textContent).toContain('Safety:');
+    expect(note?.closest('[aria-live]')).toBeNull();
+  });
 });

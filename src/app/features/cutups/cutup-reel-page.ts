@@ -5,6 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { Title } from '@angular/platform-browser';
 import { RouterLink } from '@angular/router';
 import { AuthStore } from '../../core/auth/auth-store';
+import { SafetyNote } from '../../core/feedback/safety-note';
 import { StatePanel } from '../../core/feedback/state-panel';
 import { inlineErrors } from '../../core/http/inline-errors';
 import { SnapPlayer } from '../snap-player/snap-player';
@@ -22,7 +23,7 @@ import { clipLabel } from './reel-item';
 @Component({
   selector: 'tw-cutup-reel-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatButtonModule, MatIconModule, PlayerHooks, RouterLink, SnapPlayer, StatePanel],
+  imports: [MatButtonModule, MatIconModule, PlayerHooks, RouterLink, SafetyNote, SnapPlayer, StatePanel],
   templateUrl: './cutup-reel-page.html',
   styleUrl: './cutup-reel-page.scss',
 })

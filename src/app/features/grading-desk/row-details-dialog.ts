@@ -5,6 +5,8 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
+import { namesRestrictedBlock } from '@shared/safety';
+import { SafetyNote } from '../../core/feedback/safety-note';
 import type { GradeDraft } from './grade-draft';
 import type { CountField } from './grade-columns';
 import { MAX_COUNT } from './grade-edits';
@@ -22,7 +24,7 @@ export interface RowDetailsData {
 @Component({
   selector: 'tw-row-details-dialog',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule],
+  imports: [MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, SafetyNote],
   template: `
     <h2 mat-dialog-title>{{ data.title }}{{ data.snapOrder !== null ? ' · snap ' + data.snapOrder : '' }}</h2>
     <mat-dialog-content class="tw-form tw-dense" (keydown)="onKey($event)">
@@ -55,6 +57,9 @@ export interface RowDetailsData {
 
       <fieldset>
         <legend>Penalties ({{ d.penalties.length }})</legend>
+        @if (restrictedBlocks) {
+          <tw-safety-note />
+        }
         <ul>
           @for (p of d.penalties; track $index; let i = $index) {
             <li>
@@ -110,6 +115,8 @@ export class RowDetailsDialog {
   private readonly ref = inject<MatDialogRef<RowDetailsDialog, GradeDraft>>(MatDialogRef);
   protected readonly draft = signal<GradeDraft>(this.data.draft);
   protected readonly max = MAX_COUNT;
+  /** Light touch: the caution only where the list names blocks whose legality depends on the rule book. */
+  protected readonly restrictedBlocks = namesRestrictedBlock(this.data.penaltyTypes);
   protected readonly counts: { field: CountField; label: string }[] = [
     { field: 'knockdowns', label: 'Knockdowns' },
     { field: 'pressuresAllowed', label: 'Pressures allowed' },

@@ -5,6 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
+import { SafetyNote } from '../../core/feedback/safety-note';
 import { fieldError } from '../../core/forms/field-errors';
 import { readApiError } from '../../core/http/api-error';
 import { COMPONENT_NAMES, type Goal, type GoalComponent, type RateShape } from './development-types';
@@ -18,7 +19,7 @@ const GOAL_COMPONENTS: GoalComponent[] = ['overall', 'assignment', 'footwork', '
 @Component({
   selector: 'tw-goals-panel',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
+  imports: [MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, ReactiveFormsModule, SafetyNote],
   templateUrl: './goals-panel.html',
   styleUrl: './goals-panel.scss',
 })

@@ -3,7 +3,7 @@ import type { CanActivateFn } from '@angular/router';
 import { Router } from '@angular/router';
 import { AuthStore } from '../../core/auth/auth-store';
 
-/** "My progress": a player goes straight to his own page; staff stay on the list of players. */
+/** The player's "Progress" link: a player goes straight to his own page; staff stay on the list of players. */
 export const ownProgressGuard: CanActivateFn = async () => {
   const auth = inject(AuthStore);
   const router = inject(Router);

@@ -137,5 +137,7 @@ describe('ProgressPage', () => {
     expect(element().querySelector('form[aria-label="New coach note"]')).toBeNull();
     expect(element().textContent).toContain('Quicker first step against the 4i.');
     expect(element().querySelector('a[href="/progress"]')).toBeNull();
+    // His goals are technique targets: the safety caution goes with them.
+    expect(element().querySelector('tw-goals-panel tw-safety-note [role=note]')?.textContent).toContain('Safety:');
   });
 });

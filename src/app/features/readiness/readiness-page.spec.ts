@@ -69,6 +69,11 @@ describe('ReadinessPage', () => {
     expect(items).toEqual(['Inside zone against Bear', 'Power against Over', 'Power against Bear']);
   });
 
+  it('puts the safety caution right under where to put practice reps', () => {
+    const heading = Array.from(element().querySelectorAll('h2')).find((h) => h.textContent === 'Where to put practice reps');
+    expect(heading?.nextElementSibling?.tagName).toBe('TW-SAFETY-NOTE');
+  });
+
   it('shows missed assignments as positions by reason with totals', () => {
     const rows = Array.from(element().querySelectorAll('[data-testid=missed-table] tr'), (tr) => Array.from(tr.children, (c) => c.textContent?.trim()));
     expect(rows).toEqual([

@@ -3,6 +3,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, sig
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { AuthStore } from '../../core/auth/auth-store';
+import { SafetyNote } from '../../core/feedback/safety-note';
 import { StatePanel } from '../../core/feedback/state-panel';
 import { inlineErrors } from '../../core/http/inline-errors';
 import { TeamStore } from '../../core/team/team-store';
@@ -24,7 +25,7 @@ const PRIORITIES_SHOWN = 10;
 @Component({
   selector: 'tw-readiness-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatButtonModule, MatIconModule, ReadinessGrid, ReportStyles, SeasonPicker, StatePanel, UnitGradeChart],
+  imports: [MatButtonModule, MatIconModule, ReadinessGrid, ReportStyles, SafetyNote, SeasonPicker, StatePanel, UnitGradeChart],
   templateUrl: './readiness-page.html',
   styleUrl: './readiness-page.scss',
 })

@@ -86,6 +86,11 @@ describe('StudyClipPage', () => {
     expect(play).toHaveBeenCalled();
   });
 
+  it('shows the safety caution with his coaching points', async () => {
+    await render(null);
+    expect(element().querySelector('section.points tw-safety-note [role=note]')?.textContent).toContain('Safety:');
+  });
+
   it('says "Got it" with a POST and then shows the point as acknowledged', async () => {
     await render(null);
     const gotIt = Array.from(element().querySelectorAll<HTMLButtonElement>('[data-testid=thread] button')).find((b) => b.textContent?.includes('Got it'));

@@ -12,6 +12,7 @@ import type { Comment } from '@shared/api/film-room';
 import { formatClock } from '@shared/film';
 import { AuthStore } from '../../core/auth/auth-store';
 import { Notifier } from '../../core/feedback/notifier';
+import { SafetyNote } from '../../core/feedback/safety-note';
 import { StatePanel } from '../../core/feedback/state-panel';
 import { readApiError } from '../../core/http/api-error';
 import { inlineErrors } from '../../core/http/inline-errors';
@@ -41,7 +42,7 @@ export function atParam(value: unknown): number | undefined {
 @Component({
   selector: 'tw-study-clip-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [CommentThread, FormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, PlayerHooks, PointMarkers, RouterLink, SnapPlayer, StatePanel, WatchedMeter],
+  imports: [CommentThread, FormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, PlayerHooks, PointMarkers, RouterLink, SafetyNote, SnapPlayer, StatePanel, WatchedMeter],
   templateUrl: './study-clip-page.html',
   styleUrl: './study-clip-page.scss',
 })
