@@ -6,7 +6,7 @@ import type { JobQueue } from '../server/core/queue';
 import type { ObjectStorage } from '../server/core/storage';
 import { clipJobDead } from './clip-dead.handler';
 import { sendCoachingDigest } from './coaching-digest.handler';
-import { sendWeeklySummaries } from './weekly-summary.handler';
+import { enqueueWeeklySummaries, sendWeeklySummaries } from './weekly-summary.handler';
 import type { Mailer } from './mailer';
 import type { MediaOps } from './media-ops';
 import { processClip } from './process-clip.handler';
@@ -35,4 +35,5 @@ export const HANDLERS: { [N in JobName]: JobHandler<N> } = {
   'clip.dead': clipJobDead,
   'digest.coaching': sendCoachingDigest,
   'summary.weekly': sendWeeklySummaries,
+  'summary.weekly-all': enqueueWeeklySummaries,
 };

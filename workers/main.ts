@@ -6,6 +6,7 @@ import { createJobQueue } from '../server/core/queue';
 import { createObjectStorage } from '../server/core/storage';
 import { createMailer } from './mailer';
 import { createMediaOps } from './media-toolkit';
+import { registerSchedules } from './schedules';
 import { startWorking } from './worker';
 
 // The background worker process: `npm run serve:worker`. pg-boss gives at-least-once delivery with
@@ -18,8 +19,10 @@ async function main(): Promise<void> {
     max: config.workerConcurrency + 2,
     policies: jobPolicies(config.media.timeoutMs),
     maintenanceSeconds: config.jobMaintenanceSeconds,
+    schedule: true,
   });
   await queue.start();
+  await registerSchedules(queue, config);
   const database = createDatabase(config.databaseUrl, { max: config.workerConcurrency + 2 });
   const storage = createObjectStorage(config);
   const mailer = createMailer(config);

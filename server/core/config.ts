@@ -47,6 +47,24 @@ const envSchema = z.object({
   STRIP_FRAMES: z.coerce.number().int().min(2).max(200).default(40),
   JOB_MAINTENANCE_SECONDS: z.coerce.number().int().min(1).max(3600).default(60),
   DIGEST_DELAY_SECONDS: z.coerce.number().int().min(0).max(86400).default(120),
+  // Five-field cron (minute hour day-of-month month day-of-week); 'off' sends none on a schedule.
+  WEEKLY_SUMMARY_CRON: z
+    .string()
+    .trim()
+    .regex(/^(off|(\S+\s+){4}\S+)$/, "five cron fields, e.g. '0 12 * * 1', or 'off'")
+    .default('0 12 * * 1'),
+  WEEKLY_SUMMARY_TZ: z
+    .string()
+    .trim()
+    .refine((tz) => {
+      try {
+        new Intl.DateTimeFormat('en', { timeZone: tz });
+        return true;
+      } catch {
+        return false;
+      }
+    }, 'an IANA time zone name')
+    .default('UTC'),
 });
 
 export interface Config {
@@ -91,6 +109,8 @@ export interface Config {
   readonly jobMaintenanceSeconds: number;
   /** New coaching points wait this long before their digest goes, so a session's points arrive in one mail. */
   readonly digestDelaySeconds: number;
+  /** When the weekly development summaries go out (cron in the time zone), or null when off. */
+  readonly weeklySummary: { readonly cron: string; readonly timeZone: string } | null;
 }
 
 // Used only outside production when no secret is configured: sessions then do not survive
@@ -162,5 +182,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     }),
     jobMaintenanceSeconds: e.JOB_MAINTENANCE_SECONDS,
     digestDelaySeconds: e.DIGEST_DELAY_SECONDS,
+    weeklySummary: e.WEEKLY_SUMMARY_CRON === 'off' ? null : Object.freeze({ cron: e.WEEKLY_SUMMARY_CRON, timeZone: e.WEEKLY_SUMMARY_TZ }),
   });
 }

@@ -31,6 +31,8 @@ export interface JobPayloads {
   'digest.coaching': { playerId: number };
   /** The weekly development summary to each player of a team who wants it. */
   'summary.weekly': { teamId: number };
+  /** The weekly schedule's tick: one 'summary.weekly' job for every team with players. */
+  'summary.weekly-all': Record<string, never>;
 }
 export type JobName = keyof JobPayloads;
 
@@ -53,6 +55,7 @@ export const JOB_POLICIES: { readonly [N in JobName]: JobPolicy } = {
   'clip.dead': { retryLimit: 5, retryDelay: 5, retryBackoff: true, expireInSeconds: 60 },
   'digest.coaching': { retryLimit: 5, retryDelay: 30, retryBackoff: true, expireInSeconds: 120 },
   'summary.weekly': { retryLimit: 3, retryDelay: 60, retryBackoff: true, expireInSeconds: 600 },
+  'summary.weekly-all': { retryLimit: 3, retryDelay: 60, retryBackoff: true, expireInSeconds: 300 },
 };
 
 /**

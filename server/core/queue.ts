@@ -27,6 +27,8 @@ export interface QueueOptions {
   max?: number;
   policies?: { readonly [N in JobName]: JobPolicy };
   maintenanceSeconds?: number;
+  /** Run pg-boss's cron scheduler in this process (the workers do; every instance may, pg-boss sends each tick once). */
+  schedule?: boolean;
 }
 
 /**
@@ -54,7 +56,7 @@ export function createJobQueue(connectionString: string, options: QueueOptions =
     schema: 'pgboss',
     max: options.max ?? 4,
     supervise: options.supervise ?? false,
-    schedule: false,
+    schedule: options.schedule ?? false,
     ...(options.maintenanceSeconds ? { maintenanceIntervalSeconds: options.maintenanceSeconds, monitorStateIntervalSeconds: Math.max(1, options.maintenanceSeconds) } : {}),
   });
   // A lost connection is reported here; pg-boss reconnects by itself.
