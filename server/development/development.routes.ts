@@ -4,6 +4,7 @@ import { ROLES, STAFF_ROLES, type Role } from '@shared/roles';
 import type { AppContext } from '../core/context';
 import { forbidden, validationFailed } from '../core/errors';
 import { defineRoute, teamFromPath, type RouteDefinition, type TeamMembership } from '../core/route';
+import { teamSharing } from '../teams/teams.service';
 import { graderAgreement } from './agreement.service';
 import { comparePlayers } from './comparison.service';
 import { assertOwnPlayer, playerDevelopment, playerTeam } from './development.service';
@@ -26,8 +27,7 @@ const developmentSchema = z.object({
 /** Players see unit-level numbers only when the staff has turned sharing on. */
 async function assertUnitVisible(app: AppContext, membership: TeamMembership): Promise<void> {
   if (membership.role !== 'player') return;
-  const team = await app.db.selectFrom('teams').select('share_unit_with_players').where('id', '=', membership.teamId).executeTakeFirstOrThrow();
-  if (!team.share_unit_with_players) throw forbidden('Your staff has not shared the line\'s numbers with players.');
+  if (!(await teamSharing(app, membership.teamId)).unitWithPlayers) throw forbidden('Your staff has not shared the line\'s numbers with players.');
 }
 
 /** The team of the first player in ?players=…; the service checks that all are on that team. */
@@ -152,26 +152,6 @@ export function developmentRoutes(): RouteDefinition[] {
       handler: async ({ app, params, query, membership }) => {
         await assertUnitVisible(app, membership!);
         return lineDashboard(app, params.teamId, query.seasonId);
-      },
-    }),
-    defineRoute({
-      operationId: 'teamSharing',
-      method: 'patch',
-      path: '/teams/{teamId}/sharing',
-      summary: 'Whether players see their own grades, and the line\'s unit-level numbers.',
-      tags: ['development'],
-      access: { kind: 'team', roles: ['admin', 'coordinator'], team: teamFromPath },
-      params: teamParams,
-      body: z.object({ gradesWithPlayers: z.boolean().optional(), unitWithPlayers: z.boolean().optional() }),
-      responses: { 200: { description: 'The settings' } },
-      handler: async ({ app, params, body }) => {
-        const values = {
-          ...(body.gradesWithPlayers !== undefined ? { share_grades_with_players: body.gradesWithPlayers } : {}),
-          ...(body.unitWithPlayers !== undefined ? { share_unit_with_players: body.unitWithPlayers } : {}),
-        };
-        if (Object.keys(values).length > 0) await app.db.updateTable('teams').set(values).where('id', '=', params.teamId).execute();
-        const team = await app.db.selectFrom('teams').select(['share_grades_with_players', 'share_unit_with_players']).where('id', '=', params.teamId).executeTakeFirstOrThrow();
-        return { gradesWithPlayers: team.share_grades_with_players, unitWithPlayers: team.share_unit_with_players };
       },
     }),
   ];

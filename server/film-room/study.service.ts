@@ -5,11 +5,14 @@ import type { AppContext } from '../core/context';
 import { forbidden, notFound } from '../core/errors';
 import type { TeamMembership } from '../core/route';
 import { mediaUrl } from '../film/media-urls';
+import { snapGradesOnClips } from '../grading/player-grades.service';
+import { teamSharing } from '../teams/teams.service';
 import { assertClipVisible, visibleClipIds } from './visibility';
 
 /**
  * A player's study queue: every clip tagged to or shared with him, newest first, with the points
- * for him (and whether he acknowledged each) and how much of the clip he has watched.
+ * for him (and whether he acknowledged each), how much of the clip he has watched, and, when his
+ * staff shares grades, his final grade on the clip's snap.
  */
 export async function myClips(app: AppContext, membership: TeamMembership) {
   if (membership.playerId === null) throw forbidden('The study queue is for players.');
@@ -42,7 +45,10 @@ export async function myClips(app: AppContext, membership: TeamMembership) {
         .orderBy('c.at_ms')
         .execute()
     : [];
+  const { gradesWithPlayers } = await teamSharing(app, membership.teamId);
+  const grades = await snapGradesOnClips(app, membership.teamId, playerId, ids, gradesWithPlayers);
   return {
+    gradesShared: gradesWithPlayers,
     clips: clips.rows.map((c) => ({
       clipId: c.id,
       sessionId: c.session_id,
@@ -58,6 +64,7 @@ export async function myClips(app: AppContext, membership: TeamMembership) {
       comments: comments
         .filter((x) => x.clip_id === c.id)
         .map((x) => ({ id: x.id, atMs: x.at_ms, endMs: x.end_ms, kind: x.kind, component: x.component, body: x.body, author: x.name, acknowledged: x.acknowledged_at !== null, replies: Number(x.replies ?? 0) })),
+      grade: grades.get(c.id) ?? null,
     })),
   };
 }

@@ -14,12 +14,14 @@ import {
   schemeInputSchema,
   schemeSchema,
 } from '@shared/api/grading';
+import { playerGradeSheetSchema, playerSheetParams } from '@shared/api/player-grades';
 import { GRADING_ROLES, ROLES, STAFF_ROLES, type Role } from '@shared/roles';
 import { defineRoute, Reply, teamFromPath, type RouteDefinition } from '../core/route';
 import { teamOfSession, teamOfSnap } from '../film/team-resolvers';
 import { depthChartHistory, getDepthChart, saveDepthChart } from './depth-chart.service';
 import { listSnapGrades, loadDesk, setParticipants } from './desk.service';
 import { buildGradeSheet, gradeSheetCsv } from './grade-sheet.service';
+import { playerGradeSheet } from './player-grades.service';
 import { saveGrade } from './grades.service';
 import { gradingProgress, setGradingLock } from './progress.service';
 import { getScheme, saveScheme } from './scheme.service';
@@ -111,6 +113,21 @@ export function gradingRoutes(): RouteDefinition[] {
       params: idParams,
       responses: { 200: { description: 'The sheet', schema: gradeSheetSchema } },
       handler: async ({ app, params, membership }) => buildGradeSheet(app, params.id, membership!),
+    }),
+    defineRoute({
+      operationId: 'playerGradeSheet',
+      method: 'get',
+      path: '/film-sessions/{id}/grade-sheet/players/{playerId}',
+      summary: "One player's row of the session's Grade Sheet, with the names of the team's own parts. A player opens only his own, and only when the staff shares grades.",
+      tags: ['grading'],
+      access: { kind: 'team', roles: ROLES, team: teamOfSession },
+      params: playerSheetParams,
+      responses: {
+        200: { description: 'His row (null before his first final grade)', schema: playerGradeSheetSchema },
+        403: { description: "Another player's sheet, or grades not shared with players" },
+        404: { description: 'No such session or no such player on its team' },
+      },
+      handler: async ({ app, params, membership }) => playerGradeSheet(app, params.id, params.playerId, membership!),
     }),
     defineRoute({
       operationId: 'gradeSheetCsv',

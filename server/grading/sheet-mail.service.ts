@@ -5,6 +5,9 @@ import { enqueueMail } from '../mail/outbox';
 import { gradeSheetMail } from '../mail/templates';
 import { buildGradeSheet } from './grade-sheet.service';
 
+/** The player's own read-only Grade Sheet of the session (client route /study/sheets/:sessionId). */
+const playerSheetLink = (app: AppContext, sessionId: number) => `${app.config.publicUrl}/study/sheets/${sessionId}`;
+
 const pct = (rate: number | null) => (rate === null ? '—' : `${Math.round(rate * 100)} %`);
 
 /** Mails one player his own numbers for a session (through the queue; the SMTP fake locally). */
@@ -27,5 +30,5 @@ export async function mailGradeSheet(app: AppContext, sessionId: number, playerI
     `Missed assignments ${row.missedAssignments}, knockdowns ${row.knockdowns}, pressures allowed ${row.pressuresAllowed}, sacks allowed ${row.sacksAllowed}, penalties ${row.penalties}.`,
     ...row.notes.slice(0, 10).map((n) => `Snap ${n.snapOrder}: ${n.note}`),
   ];
-  await enqueueMail(app, gradeSheetMail({ to: account.email, playerName: row.name, sessionTitle: session.title, lines, link: `${app.config.publicUrl}/` }));
+  await enqueueMail(app, gradeSheetMail({ to: account.email, playerName: row.name, sessionTitle: session.title, lines, link: playerSheetLink(app, sessionId) }));
 }

@@ -1,7 +1,15 @@
 import type { Database } from '../../db/database';
 
 export function findTeam(db: Database, teamId: number) {
-  return db.selectFrom('teams').select(['id', 'name']).where('id', '=', teamId).executeTakeFirst();
+  return db.selectFrom('teams').select(['id', 'name', 'share_grades_with_players', 'share_unit_with_players']).where('id', '=', teamId).executeTakeFirst();
+}
+
+export function findSharing(db: Database, teamId: number) {
+  return db.selectFrom('teams').select(['share_grades_with_players', 'share_unit_with_players']).where('id', '=', teamId).executeTakeFirst();
+}
+
+export async function updateSharing(db: Database, teamId: number, values: { share_grades_with_players?: boolean; share_unit_with_players?: boolean }): Promise<void> {
+  await db.updateTable('teams').set(values).where('id', '=', teamId).execute();
 }
 
 export function listSeasons(db: Database, teamId: number) {

@@ -1,8 +1,8 @@
-import type { Season, Team } from '@shared/api/team';
+import type { Season, Team, TeamSharing } from '@shared/api/team';
 import type { AppContext } from '../core/context';
 import { conflict, notFound } from '../core/errors';
 import { isUniqueViolation } from '../core/pg-errors';
-import { findCurrentSeason, findSeason, findTeam, listSeasons } from './teams.repository';
+import { findCurrentSeason, findSeason, findSharing, findTeam, listSeasons, updateSharing } from './teams.repository';
 
 function toSeason(row: Awaited<ReturnType<typeof listSeasons>>[number]): Season {
   return { id: row.id, name: row.name, startsOn: row.starts_on, endsOn: row.ends_on, isCurrent: row.is_current };
@@ -12,7 +12,28 @@ export async function describeTeam(app: AppContext, teamId: number): Promise<Tea
   const team = await findTeam(app.db, teamId);
   if (!team) throw notFound('That team');
   const seasons = (await listSeasons(app.db, teamId)).map(toSeason);
-  return { id: team.id, name: team.name, seasons, currentSeasonId: seasons.find((s) => s.isCurrent)?.id ?? null };
+  return { id: team.id, name: team.name, seasons, currentSeasonId: seasons.find((s) => s.isCurrent)?.id ?? null, sharing: toSharing(team) };
+}
+
+function toSharing(row: { share_grades_with_players: boolean; share_unit_with_players: boolean }): TeamSharing {
+  return { gradesWithPlayers: row.share_grades_with_players, unitWithPlayers: row.share_unit_with_players };
+}
+
+/** What the team's staff shares with its players. */
+export async function teamSharing(app: AppContext, teamId: number): Promise<TeamSharing> {
+  const row = await findSharing(app.db, teamId);
+  if (!row) throw notFound('That team');
+  return toSharing(row);
+}
+
+/** Turns either switch; a switch left out keeps its value. */
+export async function setTeamSharing(app: AppContext, teamId: number, change: Partial<TeamSharing>): Promise<TeamSharing> {
+  const values = {
+    ...(change.gradesWithPlayers !== undefined ? { share_grades_with_players: change.gradesWithPlayers } : {}),
+    ...(change.unitWithPlayers !== undefined ? { share_unit_with_players: change.unitWithPlayers } : {}),
+  };
+  if (Object.keys(values).length > 0) await updateSharing(app.db, teamId, values);
+  return teamSharing(app, teamId);
 }
 
 /** The season a request is about: the one asked for (it must be this team's) or the current one. */

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { COMMENT_KINDS, POINT_KINDS, POSITION_GROUPS } from '../film-room';
 import { idSchema } from './common';
+import { snapGradeSchema } from './player-grades';
 
 /** POST /api/clips/{id}/comments: a coaching point for one or more players (staff only). */
 export const pointCreateSchema = z
@@ -52,8 +53,12 @@ export const myClipsSchema = z.object({
       watchedFraction: z.number(),
       newest: z.string(),
       comments: z.array(z.object({ id: z.number().int(), atMs: z.number().int(), endMs: z.number().int().nullable(), kind: z.string(), component: z.string().nullable(), body: z.string(), author: z.string(), acknowledged: z.boolean(), replies: z.number().int() })),
+      /** His final grade on the clip's snap; null when not graded, not a snap, or grades are not shared. */
+      grade: snapGradeSchema.nullable(),
     }),
   ),
+  /** Whether his staff shares grades with players (the team's setting). */
+  gradesShared: z.boolean(),
 });
 
 export const viewReportSchema = z.object({ fromMs: z.number().int().min(0), toMs: z.number().int().min(0) });

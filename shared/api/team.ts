@@ -11,11 +11,18 @@ export const seasonSchema = z.object({
 });
 export type Season = z.infer<typeof seasonSchema>;
 
+/** What the staff shares with players: each his own grades, and the line's unit-level numbers. */
+export const teamSharingSchema = z.object({ gradesWithPlayers: z.boolean(), unitWithPlayers: z.boolean() });
+export type TeamSharing = z.infer<typeof teamSharingSchema>;
+/** PATCH /api/teams/{teamId}/sharing: either switch, or both; an empty body changes nothing. */
+export const teamSharingUpdateSchema = teamSharingSchema.partial();
+
 export const teamSchema = z.object({
   id: z.number().int(),
   name: z.string(),
   seasons: z.array(seasonSchema),
   currentSeasonId: z.number().int().nullable(),
+  sharing: teamSharingSchema,
 });
 export type Team = z.infer<typeof teamSchema>;
 

@@ -84,8 +84,9 @@ export const routes: Routes = [
         loadChildren: () => import('./features/progress/progress.routes').then((m) => m.progressRoutes),
       },
       {
+        // Players too, read only, while the team shares the line's numbers (the nav follows the same rule).
         path: 'readiness',
-        canActivate: [roleGuard(STAFF_ROLES)],
+        canActivate: [roleGuard(STAFF_ROLES, 'unitWithPlayers')],
         loadChildren: () => import('./features/readiness/readiness.routes').then((m) => m.readinessRoutes),
       },
       {

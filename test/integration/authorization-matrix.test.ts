@@ -76,6 +76,8 @@ const EXPECTED: Record<string, Rule> = {
   gradingProgress: STAFF,
   setGradingLock: EDITORS,
   gradeSheet: ROLES,
+  // Object level: a player opens only his own row; the fixture's player is another lineman.
+  playerGradeSheet: STAFF,
   gradeSheetCsv: STAFF,
   mailGradeSheet: GRADERS,
   getGradingScheme: STAFF,

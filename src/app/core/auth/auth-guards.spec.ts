@@ -4,6 +4,7 @@ import { TestBed } from '@angular/core/testing';
 import { ActivatedRouteSnapshot, GuardResult, MaybeAsync, RouterStateSnapshot, UrlTree, provideRouter } from '@angular/router';
 import { STAFF_ROLES } from '@shared/roles';
 import { sessionFor } from '../../../testing/sessions';
+import { waitFor } from '../../../testing/wait-for';
 import { AuthStore } from './auth-store';
 import { roleGuard } from './role-guard';
 import { signedInGuard } from './signed-in-guard';
@@ -58,6 +59,21 @@ describe('route guards', () => {
       expect(asText(await run(() => roleGuard(['admin'])(route, state('/staff'))))).toBe('/');
       auth.selectTeam(2);
       expect(await run(() => roleGuard(['admin'])(route, state('/staff')))).toBe(true);
+    });
+
+    it('admits a player to a shared staff page only while his team has that switch on, asking the team fresh', async () => {
+      TestBed.inject(AuthStore).setSession(sessionFor('player'));
+      const team = (unitWithPlayers: boolean) => ({ id: 1, name: 'Ironvale Anvils', currentSeasonId: null, seasons: [], sharing: { gradesWithPlayers: true, unitWithPlayers } });
+      const guard = () => roleGuard(STAFF_ROLES, 'unitWithPlayers')(route, state('/readiness'));
+      const shared = run(guard);
+      (await waitFor(() => http.match('/api/teams/1')[0], 'the team')).flush(team(true));
+      expect(await shared).toBe(true);
+      const notShared = run(guard);
+      (await waitFor(() => http.match('/api/teams/1')[0], 'the team')).flush(team(false));
+      expect(asText(await notShared)).toBe('/');
+      // Staff pages without a switch stay closed to him, without asking.
+      expect(asText(await run(() => roleGuard(STAFF_ROLES)(route, state('/roster'))))).toBe('/');
+      http.expectNone('/api/teams/1');
     });
   });
 });

@@ -4,6 +4,7 @@ import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import type { Role } from '@shared/roles';
 import { sessionFor } from '../../../testing/sessions';
+import { waitFor } from '../../../testing/wait-for';
 import { AuthStore } from '../auth/auth-store';
 import { DevMailProbe } from '../dev/dev-mail-probe';
 import { AppShell } from './app-shell';
@@ -19,7 +20,7 @@ describe('AppShell navigation', () => {
 
   afterEach(() => http.verify());
 
-  async function render(role: Role, devMail: 'on' | 'off' = 'off', extraTeams: Parameters<typeof sessionFor>[1] = []) {
+  async function render(role: Role, devMail: 'on' | 'off' = 'off', extraTeams: Parameters<typeof sessionFor>[1] = [], unitWithPlayers = false) {
     TestBed.inject(AuthStore).setSession(sessionFor(role, extraTeams));
     const fixture = TestBed.createComponent(AppShell);
     fixture.detectChanges();
@@ -27,6 +28,8 @@ describe('AppShell navigation', () => {
     if (devMail === 'on') probe.flush({ messages: [] });
     else probe.flush({ error: { code: 'not_found', message: 'Not found.' } }, { status: 404, statusText: 'Not Found' });
     await TestBed.inject(DevMailProbe).check();
+    // What the team shares with players decides a player's links.
+    (await waitFor(() => (TestBed.tick(), http.match('/api/teams/1')[0]), 'the team')).flush({ id: 1, name: 'Ironvale Anvils', currentSeasonId: null, seasons: [], sharing: { gradesWithPlayers: true, unitWithPlayers } });
     await fixture.whenStable();
     return fixture;
   }
@@ -66,9 +69,15 @@ describe('AppShell navigation', () => {
     const fixture = await render('player', 'off', [{ teamId: 2, teamName: 'Ironvale Anvils JV', role: 'coordinator' }]);
     expect(navLabels(fixture)).not.toContain('Roster');
     TestBed.inject(AuthStore).selectTeam(2);
+    (await waitFor(() => (TestBed.tick(), http.match('/api/teams/2')[0]), 'the second team')).flush({ id: 2, name: 'Ironvale Anvils JV', currentSeasonId: null, seasons: [], sharing: { gradesWithPlayers: true, unitWithPlayers: false } });
     await fixture.whenStable();
     expect(navLabels(fixture)).toEqual(['This Week', 'Film Library', 'Grading Desk', 'Cut-ups', 'Readiness Grid', 'Depth Chart', 'Position Battle', 'Calibration', 'Roster', 'Mail settings']);
     expect(localStorage.getItem('trenchwork.selectedTeamId')).toBe('2');
     expect((fixture.nativeElement as HTMLElement).querySelector('tw-team-switcher')?.textContent).toContain('Ironvale Anvils JV');
+  });
+
+  it("adds the Readiness Grid for a player only while his team shares the line's numbers", async () => {
+    const fixture = await render('player', 'off', [], true);
+    expect(navLabels(fixture)).toEqual(['This Week', 'Study Queue', 'Progress', 'Readiness Grid', 'Mail settings']);
   });
 });

@@ -12,6 +12,7 @@ import { map } from 'rxjs';
 import { ROLE_LABELS } from '@shared/roles';
 import { AuthStore } from '../auth/auth-store';
 import { DevMailProbe } from '../dev/dev-mail-probe';
+import { TeamStore } from '../team/team-store';
 import { NavLink, navLinksFor } from './nav-links';
 import { TeamSwitcher } from './team-switcher';
 
@@ -38,6 +39,8 @@ export class AppShell {
   protected readonly auth = inject(AuthStore);
   private readonly router = inject(Router);
   private readonly devMail = inject(DevMailProbe);
+  /** A player's links depend on what his team shares with players. */
+  private readonly teams = inject(TeamStore);
   private readonly sidenav = viewChild(MatSidenav);
   protected readonly roleLabels = ROLE_LABELS;
 
@@ -49,7 +52,7 @@ export class AppShell {
   );
 
   protected readonly links = computed<NavLink[]>(() => {
-    const links = navLinksFor(this.auth.role());
+    const links = navLinksFor(this.auth.role(), this.teams.sharing());
     return this.devMail.available() ? [...links, { path: '/dev/mailbox', label: 'Dev mailbox', icon: 'mail' }] : links;
   });
 

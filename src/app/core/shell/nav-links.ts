@@ -1,3 +1,4 @@
+import type { TeamSharing } from '@shared/api/team';
 import { GRADING_ROLES, STAFF_ROLES, type Role } from '@shared/roles';
 
 export interface NavLink {
@@ -22,14 +23,21 @@ const LINKS: { link: NavLink; roles: readonly Role[] }[] = [
   { link: { path: '/settings/mail', label: 'Mail settings', icon: 'mark_email_read' }, roles: ['admin', 'coordinator', 'coach', 'analyst', 'player'] },
 ];
 
-/** The side navigation for a role in the selected team. Route guards enforce the same rule. */
-export function navLinksFor(role: Role | null): NavLink[] {
+/** Staff pages a player may open too while his team shares that switch (roleGuard's `playersWhen`). */
+const SHARED_WITH_PLAYERS = new Map<string, keyof TeamSharing>([['/readiness', 'unitWithPlayers']]);
+
+/** The side navigation for a role in the selected team (and what the team shares). Route guards enforce the same rule. */
+export function navLinksFor(role: Role | null, sharing: TeamSharing | null = null): NavLink[] {
   if (role === null) return [];
-  return LINKS.filter((entry) => entry.roles.includes(role)).map((entry) => entry.link);
+  const sharedWithPlayer = (path: string) => {
+    const setting = SHARED_WITH_PLAYERS.get(path);
+    return role === 'player' && setting !== undefined && sharing?.[setting] === true;
+  };
+  return LINKS.filter((entry) => entry.roles.includes(role) || sharedWithPlayer(entry.link.path)).map((entry) => entry.link);
 }
 
 /** Whether `url` stays reachable after switching to a team where the user holds `role`. */
-export function urlAllowedFor(role: Role | null, url: string): boolean {
+export function urlAllowedFor(role: Role | null, url: string, sharing: TeamSharing | null = null): boolean {
   const path = url.split(/[?#]/)[0];
-  return navLinksFor(role).some((link) => (link.path === '/' ? path === '/' : path === link.path || path.startsWith(`${link.path}/`)));
+  return navLinksFor(role, sharing).some((link) => (link.path === '/' ? path === '/' : path === link.path || path.startsWith(`${link.path}/`)));
 }

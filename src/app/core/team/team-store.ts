@@ -1,6 +1,7 @@
-import { httpResource } from '@angular/common/http';
+import { HttpClient, httpResource } from '@angular/common/http';
 import { Injectable, computed, inject } from '@angular/core';
-import type { Season, Team } from '@shared/api/team';
+import { Observable, tap } from 'rxjs';
+import type { Season, Team, TeamSharing } from '@shared/api/team';
 import { AuthStore } from '../auth/auth-store';
 import { inlineErrors } from '../http/inline-errors';
 
@@ -8,6 +9,7 @@ import { inlineErrors } from '../http/inline-errors';
 @Injectable({ providedIn: 'root' })
 export class TeamStore {
   private readonly auth = inject(AuthStore);
+  private readonly http = inject(HttpClient);
 
   readonly team = httpResource<Team>(() => {
     const teamId = this.auth.teamId();
@@ -21,4 +23,16 @@ export class TeamStore {
     const team = this.team.value();
     return team.seasons.find((s) => s.id === team.currentSeasonId) ?? null;
   });
+
+  /** What the staff shares with players; null until the team has loaded. */
+  readonly sharing = computed<TeamSharing | null>(() => (this.team.hasValue() ? this.team.value().sharing : null));
+
+  /** Turns a sharing switch (admins and coordinators); the team document follows the answer. */
+  saveSharing(teamId: number, change: Partial<TeamSharing>): Observable<TeamSharing> {
+    return this.http.patch<TeamSharing>(`/api/teams/${teamId}/sharing`, change, { context: inlineErrors() }).pipe(
+      tap((sharing) => {
+        if (this.team.hasValue() && this.team.value().id === teamId) this.team.set({ ...this.team.value(), sharing });
+      }),
+    );
+  }
 }

@@ -14,6 +14,7 @@ const TEAM: Team = {
   id: 1,
   name: 'Ironvale Anvils',
   currentSeasonId: 5,
+  sharing: { gradesWithPlayers: true, unitWithPlayers: false },
   seasons: [{ id: 5, name: '2026 season', startsOn: '2026-08-01', endsOn: '2026-11-30', isCurrent: true }],
 };
 

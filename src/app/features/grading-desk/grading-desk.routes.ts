@@ -9,7 +9,7 @@ export const gradingDeskRoutes: Routes = [
   },
   {
     path: 'scheme',
-    title: 'Grading scheme · Trenchwork',
+    title: 'Grading scheme and sharing · Trenchwork',
     canActivate: [roleGuard(['admin', 'coordinator'])],
     loadComponent: () => import('./scheme-settings-page').then((m) => m.SchemeSettingsPage),
   },

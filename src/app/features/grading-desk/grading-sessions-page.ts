@@ -22,7 +22,7 @@ const KIND_LABELS: Record<FilmSession['kind'], string> = { game: 'Game', scrimma
       <header class="tw-page-header">
         <h1>Grading Desk</h1>
         @if (canEditScheme()) {
-          <a mat-stroked-button routerLink="/grading/scheme"><mat-icon aria-hidden="true">tune</mat-icon> Grading scheme</a>
+          <a mat-stroked-button routerLink="/grading/scheme"><mat-icon aria-hidden="true">tune</mat-icon> Grading scheme and sharing</a>
         }
       </header>
       <p class="intro">Pick a session to grade. Your grades save as you type and wait in this browser when the connection drops.</p>

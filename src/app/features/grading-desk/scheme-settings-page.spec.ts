@@ -21,6 +21,8 @@ describe('SchemeSettingsPage', () => {
     TestBed.inject(AuthStore).setSession(sessionFor('coordinator'));
     fixture = TestBed.createComponent(SchemeSettingsPage);
     (await waitFor(() => (TestBed.tick(), http.match('/api/teams/1/grading-scheme')[0]), 'the scheme')).flush(scheme());
+    // The sharing switches on the same page read the team (sharing-settings.spec.ts tests them).
+    (await waitFor(() => http.match('/api/teams/1')[0], 'the team')).flush({ id: 1, name: 'Ironvale Anvils', currentSeasonId: null, seasons: [], sharing: { gradesWithPlayers: true, unitWithPlayers: false } });
     await fixture.whenStable();
   });
 

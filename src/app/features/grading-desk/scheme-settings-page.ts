@@ -13,12 +13,13 @@ import { readApiError } from '../../core/http/api-error';
 import { inlineErrors } from '../../core/http/inline-errors';
 import { GradingApi } from './grading-api';
 import { SchemeDraft, SchemeErrors, WEIGHT_LABELS, draftFromScheme, keyFromLabel, readSchemeDraft } from './scheme-draft';
+import { SharingSettings } from './sharing-settings';
 
-/** The team's grading scheme: extra parts, lists, the result rule and the winning line. Admins and coordinators. */
+/** The team's grading scheme (extra parts, lists, the result rule, the winning line) and what it shares with players. Admins and coordinators. */
 @Component({
   selector: 'tw-scheme-settings-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatButtonModule, MatIconModule, RouterLink, StatePanel],
+  imports: [DatePipe, MatButtonModule, MatIconModule, RouterLink, SharingSettings, StatePanel],
   templateUrl: './scheme-settings-page.html',
   styleUrl: './scheme-settings-page.scss',
 })

@@ -15,6 +15,7 @@ const TEAM: Team = {
   id: 1,
   name: 'Ironvale Anvils',
   currentSeasonId: 5,
+  sharing: { gradesWithPlayers: true, unitWithPlayers: false },
   seasons: [
     { id: 4, name: '2025 season', startsOn: '2025-08-01', endsOn: '2025-11-30', isCurrent: false },
     { id: 5, name: '2026 season', startsOn: '2026-08-01', endsOn: '2026-11-30', isCurrent: true },

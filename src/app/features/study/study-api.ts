@@ -5,7 +5,8 @@ import type { z } from 'zod';
 import type { myClipsSchema } from '@shared/api/film-room';
 import { inlineErrors } from '../../core/http/inline-errors';
 
-export type MyClip = z.infer<typeof myClipsSchema>['clips'][number];
+export type MyClips = z.infer<typeof myClipsSchema>;
+export type MyClip = MyClips['clips'][number];
 export type MyClipPoint = MyClip['comments'][number];
 
 /** A cut-up shared with the player (GET /api/me/cutups). */
@@ -18,6 +19,11 @@ export interface SharedCutup {
 
 export const MY_CLIPS_URL = '/api/me/clips';
 export const MY_CUTUPS_URL = '/api/me/cutups';
+
+/** His own row of a session's Grade Sheet (the API refuses anyone else's, and all of it while grades are not shared). */
+export function myGradeSheetUrl(sessionId: number, playerId: number): string {
+  return `/api/film-sessions/${sessionId}/grade-sheet/players/${playerId}`;
+}
 
 @Injectable({ providedIn: 'root' })
 export class StudyApi {

@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import { plural, studyState } from './clip-groups';
+import { SnapGradeView } from './snap-grade';
 import { snapTitle } from './snap-title';
 import type { MyClip } from './study-api';
 import { WatchedMeter } from './watched-meter';
@@ -10,7 +11,7 @@ import { WatchedMeter } from './watched-meter';
 @Component({
   selector: 'tw-study-clip-card',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatIconModule, RouterLink, WatchedMeter],
+  imports: [MatIconModule, RouterLink, SnapGradeView, WatchedMeter],
   template: `
     @let c = clip();
     @let s = state();
@@ -39,6 +40,13 @@ import { WatchedMeter } from './watched-meter';
             <mat-icon aria-hidden="true">mark_chat_unread</mat-icon>
             <span><strong>{{ s.newPoints }} new</strong> · {{ s.points - s.newPoints }} of {{ plural(s.points, 'point') }} got it</span>
           </span>
+        }
+        @if (gradesShared()) {
+          @if (c.grade) {
+            <tw-snap-grade [grade]="c.grade" />
+          } @else {
+            <span class="ungraded" data-testid="snap-ungraded">Not graded on this snap yet</span>
+          }
         }
         <tw-watched-meter [fraction]="c.watchedFraction" />
       </span>
@@ -118,10 +126,16 @@ import { WatchedMeter } from './watched-meter';
       flex: none;
       color: var(--mat-sys-on-surface-variant);
     }
+    .ungraded {
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+    }
   `,
 })
 export class StudyClipCard {
   readonly clip = input.required<MyClip>();
+  /** Whether his staff shares grades: only then does the card speak of grades at all. */
+  readonly gradesShared = input(false);
   protected readonly plural = plural;
   protected readonly state = computed(() => studyState(this.clip()));
   protected readonly title = computed(() => snapTitle(this.clip().snapOrder, this.clip().angle));

@@ -6,10 +6,13 @@ import { RouterLink } from '@angular/router';
 import { StatePanel } from '../../core/feedback/state-panel';
 import { inlineErrors } from '../../core/http/inline-errors';
 import { groupBySession, plural, studyState } from './clip-groups';
-import { MY_CLIPS_URL, MY_CUTUPS_URL, MyClip, SharedCutup } from './study-api';
+import { MY_CLIPS_URL, MY_CUTUPS_URL, MyClips, SharedCutup } from './study-api';
 import { StudyClipCard } from './study-clip-card';
 
-/** The Study Queue: a player's clips with his coaching points, newest first, by session; then his cut-ups. */
+/**
+ * The Study Queue: a player's clips with his coaching points (and, when his staff shares grades, his
+ * grade on each snap and a link to his Grade Sheet), newest first, by session; then his cut-ups.
+ */
 @Component({
   selector: 'tw-study-queue-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -18,10 +21,11 @@ import { StudyClipCard } from './study-clip-card';
   styleUrl: './study-queue-page.scss',
 })
 export class StudyQueuePage {
-  protected readonly queue = httpResource<{ clips: MyClip[] }>(() => ({ url: MY_CLIPS_URL, context: inlineErrors() }));
+  protected readonly queue = httpResource<MyClips>(() => ({ url: MY_CLIPS_URL, context: inlineErrors() }));
   protected readonly cutupList = httpResource<{ cutups: SharedCutup[] }>(() => ({ url: MY_CUTUPS_URL, context: inlineErrors() }));
 
   protected readonly clips = computed(() => (this.queue.hasValue() ? this.queue.value().clips : []));
+  protected readonly gradesShared = computed(() => this.queue.hasValue() && this.queue.value().gradesShared);
   protected readonly groups = computed(() => groupBySession(this.clips()));
   protected readonly cutups = computed(() => (this.cutupList.hasValue() ? this.cutupList.value().cutups : []));
 

@@ -1,4 +1,5 @@
 import type { Comment } from '@shared/api/film-room';
+import type { SnapGrade } from '@shared/api/player-grades';
 import type { MyClip, MyClipPoint } from './study-api';
 
 /** Invented film-room test data (the demo program: Ironvale Anvils). Player 74 is the signed-in player. */
@@ -17,6 +18,23 @@ export function myClip(overrides: Partial<MyClip> = {}): MyClip {
     watchedFraction: 0,
     newest: '2026-09-12T18:00:00.000Z',
     comments: [],
+    grade: null,
+    ...overrides,
+  };
+}
+
+/** A final grade as the queue carries it: a plus with every part marked, the team's "Finish" among them. */
+export function snapGrade(overrides: Partial<SnapGrade> = {}): SnapGrade {
+  return {
+    result: 'plus',
+    marks: [
+      { key: 'assignment', label: 'Assignment', mark: 'right' },
+      { key: 'footwork', label: 'Footwork', mark: 'plus' },
+      { key: 'hands', label: 'Hands', mark: 'plus' },
+      { key: 'padLevel', label: 'Pad level', mark: 'plus' },
+      { key: 'finish', label: 'Finish', mark: 'plus' },
+      { key: 'effort', label: 'Effort', mark: 'plus' },
+    ],
     ...overrides,
   };
 }
