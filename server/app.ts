@@ -81,7 +81,7 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
   const resetThrottle = createResetThrottle(pool);
 
   app.use(cookieParser());
-  app.use(createSessionMiddleware(config, pool, logger));
+  app.use(createSessionMiddleware(config, pool, ctx.now, logger));
   app.use(passport.initialize());
   app.use(passport.session());
   app.use(enforceAbsoluteTimeout(config, ctx.now));

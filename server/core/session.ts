@@ -4,6 +4,7 @@ import session from 'express-session';
 import type pg from 'pg';
 import type { Config } from './config';
 import type { Logger } from './logger';
+import { TouchThrottle } from './session-touch-throttle';
 
 /** The session cookie's name: `__Host-` prefixed when served over https (no Domain, Path=/, Secure). */
 export function sessionCookieName(config: Config): string {
@@ -15,10 +16,44 @@ export function sessionCookieName(config: Config): string {
  * Idle timeout: rolling cookie maxAge (default 3 h: a coach grading a game pauses for film, not
  * for hours). Absolute timeout: `loginAt` in the session, checked by `enforceAbsoluteTimeout`
  * (default 14 h: one long Sunday).
+ *
+ * Rolling means every answer moves the expiry. The cookie's moves for free; the stored one is an
+ * UPDATE and a commit, which on a busy Grading Desk cost more than the save it rode along with.
+ * So the store skips a touch when this process wrote that session's expiry less than a minute ago
+ * (TouchThrottle): the stored expiry then lags the cookie by at most a minute, and an idle session
+ * ends on the server up to a minute before the configured idle time. `now` is the app's clock.
  */
-export function createSessionMiddleware(config: Config, pool: pg.Pool, logger?: Logger): RequestHandler {
+export function createSessionMiddleware(config: Config, pool: pg.Pool, now: () => Date, logger?: Logger): RequestHandler {
   const PgStore = connectPgSimple(session);
-  const store = new PgStore({
+  const throttle = new TouchThrottle(now);
+  class ThrottledPgStore extends PgStore {
+    override touch(sid: string, sess: session.SessionData, callback?: (err?: unknown) => void): void {
+      if (throttle.isFresh(sid)) {
+        callback?.();
+        return;
+      }
+      // Noted before the write, so parallel requests of one session touch it once; a failed write is forgotten.
+      throttle.written(sid);
+      super.touch(sid, sess, (err?: unknown) => {
+        if (err) throttle.forget(sid);
+        callback?.(err);
+      });
+    }
+
+    override set(sid: string, sess: session.SessionData, callback?: (err?: unknown) => void): void {
+      throttle.written(sid);
+      super.set(sid, sess, (err?: unknown) => {
+        if (err) throttle.forget(sid);
+        callback?.(err);
+      });
+    }
+
+    override destroy(sid: string, callback?: (err?: unknown) => void): void {
+      throttle.forget(sid);
+      super.destroy(sid, callback);
+    }
+  }
+  const store = new ThrottledPgStore({
     pool,
     tableName: 'session',
     createTableIfMissing: false,

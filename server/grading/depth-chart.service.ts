@@ -28,10 +28,13 @@ export async function getDepthChart(app: AppContext, teamId: number, seasonId?: 
   return { seasonId: season.id, positions, updatedAt: last?.created_at.toISOString() ?? null };
 }
 
+/** The positions whose rank-1 players start on the desk, in the order they line up (no TE). */
+export const STARTER_POSITIONS: readonly Position[] = ['LT', 'LG', 'C', 'RG', 'RT'];
+
 /** The starter at each line position (rank 1), used to fill the grading desk. */
 export async function startersOf(db: Database, seasonId: number): Promise<{ playerId: number; position: Position }[]> {
   const rows = await db.selectFrom('depth_chart_entries').select(['player_id', 'position']).where('season_id', '=', seasonId).where('rank', '=', 1).where('position', '<>', 'TE').execute();
-  const order = ['LT', 'LG', 'C', 'RG', 'RT'];
+  const order: readonly string[] = STARTER_POSITIONS;
   return rows.sort((a, b) => order.indexOf(a.position) - order.indexOf(b.position)).map((r) => ({ playerId: r.player_id, position: r.position as Position }));
 }
 

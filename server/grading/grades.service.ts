@@ -1,11 +1,11 @@
 import type { Grade, GradeInput } from '@shared/api/grading';
-import { snapResult, type AssignmentMark, type EffortMark, type Mark } from '@shared/grading';
+import { snapResult, type AssignmentMark, type EffortMark, type GradingSchemeRules, type Mark } from '@shared/grading';
 import type { AppContext } from '../core/context';
 import { AppError, conflict, notFound, validationFailed } from '../core/errors';
 import type { SessionUser } from '../core/route';
-import { startersOf } from './depth-chart.service';
-import { findGrade, findSnapContext, type GradeRow } from './grades.repository';
-import { currentScheme } from './scheme.service';
+import { STARTER_POSITIONS } from './depth-chart.service';
+import { findGrade, findGradeContext, writeGrade, type GradeRow } from './grades.repository';
+import { DEFAULT_SCHEME_VERSION, schemeRules } from './scheme.service';
 
 export function toGrade(row: GradeRow): Grade {
   return {
@@ -42,32 +42,32 @@ export async function lockedError(): Promise<never> {
  * is version 0; an edit names the version it was made from, and a stale one is refused with 409 and
  * the current grade, so nothing is overwritten silently. The result is computed here with the
  * team's current scheme and stored with that scheme's version.
+ * Two round trips when all is well (the context, then the write with its lock check); the current
+ * grade is read only to answer a stale version.
  */
 export async function saveGrade(app: AppContext, grader: SessionUser, snapId: number, playerId: number, input: GradeInput): Promise<Grade> {
-  const snap = await findSnapContext(app.db, snapId);
+  const snap = await findGradeContext(app.db, snapId, playerId, STARTER_POSITIONS);
   if (!snap) throw notFound('That snap');
   if (snap.grading_locked) await lockedError();
-  const player = await app.db.selectFrom('players').select('id').where('id', '=', playerId).where('team_id', '=', snap.team_id).executeTakeFirst();
-  if (!player) throw notFound('That player');
-  const scheme = await currentScheme(app.db, snap.team_id);
-  const fields: Record<string, string> = {};
-  const active = new Set(scheme.rules.extraComponents.filter((c) => c.active).map((c) => c.key));
-  const unknown = Object.keys(input.extra).filter((k) => !active.has(k));
-  if (unknown.length > 0) fields.extra = `Not a component of the scheme: ${unknown.join(', ')}.`;
-  if (input.missedReason !== null && input.assignment !== 'missed') fields.missedReason = 'A reason goes with a missed assignment only.';
-  if (input.missedReason !== null && !scheme.rules.missedReasons.includes(input.missedReason)) fields.missedReason = "Choose a reason from the team's list.";
-  const badPenalty = input.penalties.find((p) => !scheme.rules.penaltyTypes.includes(p.type));
-  if (badPenalty) fields.penalties = `"${badPenalty.type}" is not on the team's penalty list.`;
+  if (!snap.player_on_team) throw notFound('That player');
+  const scheme = { version: snap.scheme_version ?? DEFAULT_SCHEME_VERSION, rules: schemeRules(snap.scheme_rules) };
+  let fields = schemeProblems(input, scheme.rules, null);
+  // An edit of a grade made under an older scheme keeps what the scheme has since retired (a
+  // component, a missed reason, a penalty type) as long as it is unchanged: the desk sends the whole
+  // grade back. Only the rare edit that needs it pays for reading the stored grade.
+  if (Object.keys(fields).length > 0 && input.version > 0) {
+    const stored = await findGrade(app.db, snapId, playerId, grader.id);
+    if (stored) fields = schemeProblems(input, scheme.rules, stored);
+  }
   if (Object.keys(fields).length > 0) throw validationFailed('Some marks need attention.', fields);
 
   const result = snapResult(
     { assignment: input.assignment, footwork: input.footwork, hands: input.hands, padLevel: input.padLevel, effort: input.effort, extra: input.extra },
     scheme.rules.resultRule,
   );
-  const position = await positionOn(app, snap.id, snap.season_id, playerId);
   const values = {
     scheme_version: scheme.version,
-    position,
+    position: snap.position,
     assignment: input.assignment,
     missed_reason: input.missedReason,
     footwork: input.footwork,
@@ -83,38 +83,31 @@ export async function saveGrade(app: AppContext, grader: SessionUser, snapId: nu
     note: input.note,
     result,
   };
-  const saved = await app.db.transaction().execute(async (trx) => {
-    // FOR SHARE: saves run side by side, while a lock (FOR UPDATE) waits for them and then wins.
-    const session = await trx.selectFrom('film_sessions').select('grading_locked').where('id', '=', snap.session_id).forShare().executeTakeFirstOrThrow();
-    if (session.grading_locked) await lockedError();
-    return input.version === 0
-      ? await trx
-          .insertInto('grades')
-          .values({ snap_id: snapId, player_id: playerId, grader_id: grader.id, ...values })
-          .onConflict((oc) => oc.columns(['snap_id', 'player_id', 'grader_id']).doNothing())
-          .returning('id')
-          .executeTakeFirst()
-      : await trx
-          .updateTable('grades')
-          .set((eb) => ({ ...values, version: eb('version', '+', 1), updated_at: app.now() }))
-          .where('snap_id', '=', snapId)
-          .where('player_id', '=', playerId)
-          .where('grader_id', '=', grader.id)
-          .where('version', '=', input.version)
-          .returning('id')
-          .executeTakeFirst();
-  });
-  const current = await findGrade(app.db, snapId, playerId, grader.id);
-  if (!saved) {
+  const written = await writeGrade(app.db, { sessionId: snap.session_id, snapId, playerId, graderId: grader.id }, input.version, values, app.now());
+  // The session went away between the two queries: the snap went with it.
+  if (!written) throw notFound('That snap');
+  if (written.locked) await lockedError();
+  if (!written.grade) {
+    const current = await findGrade(app.db, snapId, playerId, grader.id);
     throw new AppError(409, 'stale_version', 'This grade was changed elsewhere since you opened it. Choose which to keep.', undefined, { current: current ? toGrade(current) : null });
   }
-  return toGrade(current!);
+  // The grader is the signed-in account, whose name the session middleware has just read.
+  return toGrade({ ...written.grade, grader_name: grader.name });
 }
 
-/** The position a player lined up at on a snap: from the snap's participants, else the depth chart. */
-async function positionOn(app: AppContext, snapId: number, seasonId: number, playerId: number): Promise<string | null> {
-  const listed = await app.db.selectFrom('snap_participants').select('position').where('snap_id', '=', snapId).where('player_id', '=', playerId).executeTakeFirst();
-  if (listed) return listed.position;
-  const starter = (await startersOf(app.db, seasonId)).find((s) => s.playerId === playerId);
-  return starter?.position ?? null;
+/** Marks the team's current scheme does not allow, by field; `stored` lends its unchanged retired marks. */
+function schemeProblems(input: GradeInput, rules: GradingSchemeRules, stored: GradeRow | null): Record<string, string> {
+  const fields: Record<string, string> = {};
+  const active = new Set(rules.extraComponents.filter((c) => c.active).map((c) => c.key));
+  const storedExtra = (stored?.extra ?? {}) as Record<string, unknown>;
+  const unknown = Object.keys(input.extra).filter((k) => !active.has(k) && !(k in storedExtra && storedExtra[k] === input.extra[k]));
+  if (unknown.length > 0) fields.extra = `Not a component of the scheme: ${unknown.join(', ')}.`;
+  if (input.missedReason !== null && input.assignment !== 'missed') fields.missedReason = 'A reason goes with a missed assignment only.';
+  else if (input.missedReason !== null && !rules.missedReasons.includes(input.missedReason) && stored?.missed_reason !== input.missedReason) {
+    fields.missedReason = "Choose a reason from the team's list.";
+  }
+  const storedPenalties = new Set((stored?.penalties ?? []).map((p) => p.type));
+  const badPenalty = input.penalties.find((p) => !rules.penaltyTypes.includes(p.type) && !storedPenalties.has(p.type));
+  if (badPenalty) fields.penalties = `"${badPenalty.type}" is not on the team's penalty list.`;
+  return fields;
 }

@@ -9,6 +9,14 @@ export interface CurrentScheme {
   designatedGraderRole: 'admin' | 'coordinator' | 'coach';
 }
 
+/** The version a team that never saved a scheme grades under (with DEFAULT_SCHEME). */
+export const DEFAULT_SCHEME_VERSION = 1;
+
+/** Stored rules over the defaults: a rule added after a scheme was saved takes its default. */
+export function schemeRules(stored: unknown): GradingSchemeRules {
+  return { ...DEFAULT_SCHEME, ...(stored as Partial<GradingSchemeRules> | null) };
+}
+
 /** The team's current scheme; a team that never saved one grades under version 1, the defaults. */
 export async function currentScheme(db: Database, teamId: number): Promise<CurrentScheme & { createdAt: Date | null; createdBy: string | null }> {
   const row = await db
@@ -19,10 +27,10 @@ export async function currentScheme(db: Database, teamId: number): Promise<Curre
     .orderBy('grading_schemes.version', 'desc')
     .limit(1)
     .executeTakeFirst();
-  if (!row) return { version: 1, rules: DEFAULT_SCHEME, designatedGraderRole: 'coordinator', createdAt: null, createdBy: null };
+  if (!row) return { version: DEFAULT_SCHEME_VERSION, rules: DEFAULT_SCHEME, designatedGraderRole: 'coordinator', createdAt: null, createdBy: null };
   return {
     version: row.version,
-    rules: { ...DEFAULT_SCHEME, ...(row.rules as Partial<GradingSchemeRules>) },
+    rules: schemeRules(row.rules),
     designatedGraderRole: row.designated_grader_role as CurrentScheme['designatedGraderRole'],
     createdAt: row.created_at,
     createdBy: row.created_by_name,
