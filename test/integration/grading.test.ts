@@ -170,10 +170,17 @@ describe('the grade sheet from hand-worked grades', () => {
   test('the unit view: a snap is all-plus only when every lineman on the field graded plus', async () => {
     const res = await coach.get(`/api/film-sessions/${sheetSession}/grade-sheet`);
     const unit = res.body.unit;
-    // Snap 1: LG minus (final). Snap 2: LT minus. Snaps 3, 4: only LT graded (C and LG not graded) → not all-plus.
-    expect(unit.bySnap.map((s: { order: number; allPlus: boolean }) => [s.order, s.allPlus])).toEqual([[1, false], [2, false], [3, false], [4, false]]);
+    // Snap 1: LG minus (final). Snap 2: LT minus. Snaps 3, 4: only LT graded (C and LG not graded) →
+    // they wait until the whole line on the field is graded and count in neither.
+    expect(unit.bySnap.map((s: { order: number; allPlus: boolean; counted: boolean }) => [s.order, s.allPlus, s.counted])).toEqual([
+      [1, false, true],
+      [2, false, true],
+      [3, false, false],
+      [4, false, false],
+    ]);
     expect(unit.bySnap[0].minusPlayerIds).toEqual([LG]);
-    expect(unit).toMatchObject({ snaps: 4, allPlus: 0, rate: 0 });
+    expect(unit.bySnap[0].weakestLinkIds).toEqual([LG]);
+    expect(unit).toMatchObject({ snaps: 2, allPlus: 0, incomplete: 2, rate: 0 });
   });
 
   test('a player reads only his own row; with sharing off, nothing', async () => {
@@ -248,6 +255,33 @@ describe('progress, locks and scheme versions', () => {
     expect(unknown.body.error.fields).toHaveProperty('extra');
   });
 
+  test('retired marks: an old grade can still be edited with them unchanged, but not changed to or added', async () => {
+    // LT on snap 3 was graded under version 2 with finish plus. Version 3 retires finish and the
+    // "communication" reason; the grade's other marks stay editable.
+    const scheme = (await coordinator.get(`/api/teams/${team.teamId}/grading-scheme`)).body;
+    const withReason = await put(coach, snapIds[2]!, C, { ...allPlus, assignment: 'missed', missedReason: 'communication', extra: { finish: 'minus' } });
+    expect(withReason.status).toBe(200);
+    const retired = await coordinator.put(`/api/teams/${team.teamId}/grading-scheme`, {
+      ...scheme,
+      extraComponents: [{ key: 'finish', label: 'Finish', active: false }],
+      missedReasons: scheme.missedReasons.filter((r: string) => r !== 'communication'),
+    });
+    expect(retired.status).toBe(200);
+    const lt = (await coach.get(`/api/snaps/${snapIds[2]}/grades`)).body.grades.find((g: { playerId: number; graderId: number }) => g.playerId === LT && g.graderId === team.accounts.coach.userId);
+    const edited = await put(coach, snapIds[2]!, LT, { ...allPlus, padLevel: 'minus', extra: { finish: 'plus' }, version: lt.version });
+    expect(edited.status).toBe(200);
+    expect(edited.body).toMatchObject({ padLevel: 'minus', extra: { finish: 'plus' } });
+    const changed = await put(coach, snapIds[2]!, LT, { ...allPlus, extra: { finish: 'minus' }, version: edited.body.version });
+    expect(changed.status).toBe(422);
+    expect(changed.body.error.fields).toHaveProperty('extra');
+    // The retired reason stays on the grade that has it, and is refused on a grade that does not.
+    const c = await put(coach, snapIds[2]!, C, { ...allPlus, assignment: 'missed', missedReason: 'communication', hands: 'minus', extra: { finish: 'minus' }, version: withReason.body.version });
+    expect(c.status).toBe(200);
+    const fresh = await put(coach, snapIds[3]!, LT, { ...allPlus, assignment: 'missed', missedReason: 'communication' });
+    expect(fresh.status).toBe(422);
+    expect(fresh.body.error.fields).toHaveProperty('missedReason');
+  });
+
   test('the desk lists starters from the depth chart until a snap records its own linemen', async () => {
     const desk = await coach.get(`/api/film-sessions/${sessionId}/desk`);
     expect(desk.status).toBe(200);
@@ -305,5 +339,95 @@ describe('practice reps', () => {
     });
     // Game snaps are not practice reps.
     expect(res.body.players.find((p: { playerId: number }) => p.playerId === C)).toBeUndefined();
+  });
+});
+
+describe('what a save stores and answers', () => {
+  let gameId: number;
+  let onChart: number;
+  let listed: number;
+  let lockRace: number;
+  let bench: number;
+
+  beforeAll(async () => {
+    const game = await t.ctx.db
+      .insertInto('film_sessions')
+      .values({ team_id: team.teamId, season_id: team.seasonId, kind: 'game', title: 'Week 5 vs Marrow Flats', date: '2026-10-02', opponent: 'Marrow Flats' })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    gameId = game.id;
+    [onChart, listed, lockRace] = await Promise.all(
+      [1, 2, 3].map(async (order) => (await t.ctx.db.insertInto('snaps').values({ session_id: gameId, order }).returning('id').executeTakeFirstOrThrow()).id),
+    ) as [number, number, number];
+    // A reserve on the team, on neither the depth chart nor any snap's list.
+    bench = (await t.ctx.db.insertInto('players').values({ team_id: team.teamId, name: 'Dale Quarry' }).returning('id').executeTakeFirstOrThrow()).id;
+  });
+
+  test('the answer is the stored grade as the snap lists it, grader name included', async () => {
+    const saved = await put(coach, onChart, LT, { ...allPlus, knockdowns: 2, note: 'Finished his man' });
+    expect(saved.status).toBe(200);
+    const listedGrades = await coach.get(`/api/snaps/${onChart}/grades`);
+    expect(listedGrades.body.grades).toStrictEqual([saved.body]);
+    expect(saved.body.graderName).toBe('Grades coach');
+    const edited = await put(coach, onChart, LT, { ...allPlus, knockdowns: 3, note: null, version: 1 });
+    expect(edited.status).toBe(200);
+    expect((await coach.get(`/api/snaps/${onChart}/grades`)).body.grades).toStrictEqual([edited.body]);
+    expect(edited.body).toMatchObject({ version: 2, knockdowns: 3, note: null, id: saved.body.id });
+  });
+
+  test("the stored position: the snap's own list first, else the depth chart, else none", async () => {
+    const lineup = await coach.put(`/api/snaps/${listed}/participants`, { participants: [{ playerId: LG, position: 'TE' }, { playerId: C, position: 'C' }] });
+    expect(lineup.status).toBe(200);
+    for (const [snap, player] of [[onChart, LG], [listed, LG], [listed, LT], [onChart, bench]] as const) {
+      expect((await put(coach, snap, player, allPlus)).status).toBe(200);
+    }
+    const stored = await t.ctx.db.selectFrom('grades').select(['snap_id', 'player_id', 'position']).where('snap_id', 'in', [onChart, listed]).orderBy('snap_id').orderBy('player_id').execute();
+    expect(stored).toEqual(
+      [
+        { snap_id: onChart, player_id: LT, position: 'LT' },
+        { snap_id: onChart, player_id: LG, position: 'LG' },
+        { snap_id: onChart, player_id: bench, position: null },
+        { snap_id: listed, player_id: LT, position: 'LT' },
+        { snap_id: listed, player_id: LG, position: 'TE' },
+      ].sort((a, b) => a.snap_id - b.snap_id || a.player_id - b.player_id),
+    );
+  });
+
+  test("a player of another team is not found on this team's snap", async () => {
+    const other = await createTeamFixture(t.ctx.db, 'Elsewhere');
+    const res = await put(coach, onChart, other.playerIds[0]!, allPlus);
+    expect(res.status).toBe(404);
+    expect(res.body.error.message).toBe('That player was not found.');
+  });
+
+  test('a lock committed while a save waits for the session wins: the save answers locked and stores nothing', async () => {
+    const pool = t.database.handle.pool;
+    const locker = await pool.connect();
+    try {
+      await locker.query('BEGIN');
+      await locker.query('SELECT grading_locked FROM film_sessions WHERE id = $1 FOR UPDATE', [gameId]);
+      await locker.query('UPDATE film_sessions SET grading_locked = true WHERE id = $1', [gameId]);
+      const saving = put(coach, lockRace, C, allPlus);
+      // The save has read the session as unlocked (the lock is not committed) and now waits for its row.
+      const deadline = Date.now() + 10_000;
+      for (;;) {
+        const waiting = await pool.query<{ n: number }>(
+          `SELECT count(*)::int AS n FROM pg_stat_activity WHERE datname = current_database() AND wait_event_type = 'Lock' AND query ILIKE '%for share%'`,
+        );
+        if (waiting.rows[0]!.n > 0) break;
+        if (Date.now() > deadline) throw new Error('the save never waited for the session row');
+        await new Promise((resolve) => setTimeout(resolve, 20));
+      }
+      await locker.query('COMMIT');
+      const res = await saving;
+      expect(res.status).toBe(409);
+      expect(res.body.error.code).toBe('conflict');
+      expect(res.body.error.message).toMatch(/locked/);
+    } finally {
+      await locker.query('ROLLBACK').catch(() => undefined);
+      locker.release();
+    }
+    const stored = await t.ctx.db.selectFrom('grades').select('id').where('snap_id', '=', lockRace).execute();
+    expect(stored).toEqual([]);
   });
 });
