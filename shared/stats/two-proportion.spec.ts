@@ -1,26 +1,15 @@
 import fc from 'fast-check';
-import { jStat } from './reference-libraries.testing';
+import { chi2test, jStat } from './reference-libraries.testing';
 import { twoProportionZTest } from './two-proportion';
 
 /**
- * Pearson's chi-square of the 2×2 table [[a, nA − a], [b, nB − b]] by the textbook formula
- * Σ (O − E)² / E with E = row total × column total / N, no continuity correction. Written here
- * because no installable package computes it (see the report); its p-value comes from
- * jStat.chisquare.cdf (jstat 1.9.6).
+ * Pearson's chi-square independence test of the 2×2 table [[a, nA − a], [b, nB − b]] by
+ * @stdlib/stats-chi2test 0.2.1 with `correct: false` (its default applies Yates' continuity
+ * correction to 2×2 tables, which the z test does not have).
  */
-function pearsonChiSquare(a: number, nA: number, b: number, nB: number): number {
-  const table = [[a, nA - a], [b, nB - b]];
-  const rows = [nA, nB];
-  const cols = [a + b, nA + nB - a - b];
-  const total = nA + nB;
-  let chi2 = 0;
-  for (let i = 0; i < 2; i++) {
-    for (let j = 0; j < 2; j++) {
-      const expected = (rows[i] * cols[j]) / total;
-      chi2 += (table[i][j] - expected) ** 2 / expected;
-    }
-  }
-  return chi2;
+function pearson(a: number, nA: number, b: number, nB: number): { statistic: number; pValue: number; df: number } {
+  const { statistic, pValue, df } = chi2test([[a, nA - a], [b, nB - b]], { correct: false });
+  return { statistic, pValue, df };
 }
 
 describe('twoProportionZTest', () => {
@@ -32,24 +21,40 @@ describe('twoProportionZTest', () => {
     expect(t.z).toBeCloseTo(t.difference / Math.sqrt(pooled * (1 - pooled) * (1 / 240 + 1 / 180)), 12);
   });
 
-  test('z² equals Pearson chi-square (no continuity correction) of the same 2×2 table; p agrees with jStat.chisquare.cdf', () => {
-    for (const [a, nA, b, nB] of [[149, 240, 99, 180], [81, 263, 15, 148], [3, 10, 9, 12], [1000, 2000, 1100, 2100], [1, 30, 0, 31]]) {
-      const t = twoProportionZTest(a, nA, b, nB)!;
-      const chi2 = pearsonChiSquare(a, nA, b, nB);
-      expect(Math.abs(t.z! ** 2 - chi2) / chi2).toBeLessThan(1e-12);
-      expect(t.pValue!).toBeCloseTo(1 - jStat.chisquare.cdf(chi2, 1), 10);
-      expect(t.pValue!).toBeCloseTo(2 * (1 - jStat.normal.cdf(Math.abs(t.z!), 0, 1)), 12);
-    }
+  test.each([
+    [149, 240, 99, 180],
+    [81, 263, 15, 148],
+    [3, 10, 9, 12],
+    [1000, 2000, 1100, 2100],
+    [1, 30, 0, 31],
+    [40, 52, 35, 55],
+  ])('%d/%d against %d/%d: z² equals the Pearson chi-square of @stdlib/stats-chi2test (no continuity correction); two-sided p equals its 1-df p', (a, nA, b, nB) => {
+    const t = twoProportionZTest(a, nA, b, nB)!;
+    const reference = pearson(a, nA, b, nB);
+    expect(reference.df).toBe(1);
+    expect(Math.abs(t.z! ** 2 - reference.statistic) / reference.statistic).toBeLessThan(1e-12);
+    expect(t.pValue!).toBeCloseTo(reference.pValue, 12);
+    // Second reference for the p-value alone: jStat's chi-square and normal CDFs (jstat 1.9.6).
+    expect(t.pValue!).toBeCloseTo(1 - jStat.chisquare.cdf(reference.statistic, 1), 10);
+    expect(t.pValue!).toBeCloseTo(2 * (1 - jStat.normal.cdf(Math.abs(t.z!), 0, 1)), 12);
   });
 
-  test('property: z² = chi-square for any table with spread', () => {
+  test('the z test matches the uncorrected chi-square, not the Yates-corrected default of @stdlib', () => {
+    const t = twoProportionZTest(149, 240, 99, 180)!;
+    const yates = chi2test([[149, 91], [99, 81]]);
+    expect(Math.abs(t.z! ** 2 - yates.statistic)).toBeGreaterThan(0.1);
+    expect(t.pValue!).toBeLessThan(yates.pValue);
+  });
+
+  test('property: z² = @stdlib Pearson chi-square, p = its p, for any table with spread', () => {
     const side = fc.integer({ min: 1, max: 3000 }).chain((n) => fc.tuple(fc.integer({ min: 0, max: n }), fc.constant(n)));
     fc.assert(
       fc.property(side, side, ([a, nA], [b, nB]) => {
         fc.pre(a + b > 0 && a + b < nA + nB);
         const t = twoProportionZTest(a, nA, b, nB)!;
-        const chi2 = pearsonChiSquare(a, nA, b, nB);
-        return Math.abs(t.z! ** 2 - chi2) <= 1e-9 * Math.max(1, chi2) && t.pValue! >= 0 && t.pValue! <= 1;
+        const reference = pearson(a, nA, b, nB);
+        return Math.abs(t.z! ** 2 - reference.statistic) <= 1e-9 * Math.max(1, reference.statistic)
+          && Math.abs(t.pValue! - reference.pValue) <= 1e-9 && t.pValue! >= 0 && t.pValue! <= 1;
       }),
     );
   });

@@ -22,15 +22,19 @@ type Db = Kysely<any>;
 async function session(db: Db, date: string, kind = 'game'): Promise<number> {
   return (await db.insertInto('film_sessions').values({ team_id: team.teamId, season_id: team.seasonId, kind, title: `${kind} ${date}`, date, opponent: kind === 'game' ? 'Otter Bend' : null }).returning('id').executeTakeFirstOrThrow()).id;
 }
-/** Inserts `plus` plus and `minus` minus grades for a player in a new session, one snap each. */
-async function grades(db: Db, sessionId: number, playerId: number, plus: number, minus: number, tags: { concept_id?: number; front_id?: number; down?: number; distance?: number } = {}, grader = team.accounts.coach.userId) {
+type SnapTags = { concept_id?: number; front_id?: number; down?: number; distance?: number; hash?: 'left' | 'middle' | 'right'; quarter?: number; personnel?: string | null };
+/**
+ * Inserts `plus` plus and `minus` minus grades for a player in a session, one snap each, the snaps
+ * carrying `tags` and the grades the position played (`position`, LT unless given).
+ */
+async function grades(db: Db, sessionId: number, playerId: number, plus: number, minus: number, { position = 'LT', ...tags }: SnapTags & { position?: string } = {}, grader = team.accounts.coach.userId) {
   const start = ((await db.selectFrom('snaps').select((eb) => eb.fn.max('order').as('m')).where('session_id', '=', sessionId).executeTakeFirst()) as { m: number | null })?.m ?? 0;
   for (let i = 0; i < plus + minus; i += 1) {
     const snap = await db.insertInto('snaps').values({ session_id: sessionId, order: Number(start) + i + 1, ...tags }).returning('id').executeTakeFirstOrThrow();
     const good = i < plus;
     await db
       .insertInto('grades')
-      .values({ snap_id: snap.id, player_id: playerId, grader_id: grader, scheme_version: 1, position: 'LT', assignment: 'right', footwork: good ? 'plus' : 'minus', hands: 'plus', pad_level: 'plus', effort: 'plus', result: good ? 'plus' : 'minus' })
+      .values({ snap_id: snap.id, player_id: playerId, grader_id: grader, scheme_version: 1, position, assignment: 'right', footwork: good ? 'plus' : 'minus', hands: 'plus', pad_level: 'plus', effort: 'plus', result: good ? 'plus' : 'minus' })
       .execute();
   }
 }
@@ -53,9 +57,19 @@ beforeAll(async () => {
     const date = i < 4 ? `2026-09-${day}` : '2026-10-02';
     const id = await session(db, date);
     // Power vs bear for the first 5 snaps of each game, inside zone vs over for the rest.
+    // Power: always 5 of 5 plus; zone: plus − 5 = 1, 2, 2, 3, 4 of 5 in games 0…4.
+    // Hash: power from the middle; zone from the left in games 0, 2, 4 and the right in 1, 3.
+    // Quarter: games 0–2 power in Q1, zone in Q2; games 3–4 power in Q3, zone in Q4.
+    // Personnel: 11 in games 0–1, 12 in games 2–3, not tagged in game 4 (the whole game each).
+    // Position played: LT, except the zone snaps of games 3–4, played at LG.
     const powerPlus = Math.min(plus, 5);
-    await grades(db, id, A, powerPlus, 5 - powerPlus, { concept_id: concept.power, front_id: front.bear, down: 1, distance: 10 });
-    await grades(db, id, A, plus - powerPlus, 5 - (plus - powerPlus), { concept_id: concept.zone, front_id: front.over, down: 3, distance: 2 });
+    const early = i < 3;
+    const personnel = i < 2 ? '11' : i < 4 ? '12' : null;
+    await grades(db, id, A, powerPlus, 5 - powerPlus, { concept_id: concept.power, front_id: front.bear, down: 1, distance: 10, hash: 'middle', quarter: early ? 1 : 3, personnel });
+    await grades(db, id, A, plus - powerPlus, 5 - (plus - powerPlus), {
+      concept_id: concept.zone, front_id: front.over, down: 3, distance: 2,
+      hash: i % 2 === 0 ? 'left' : 'right', quarter: early ? 2 : 4, personnel, position: i >= 3 ? 'LG' : 'LT',
+    });
   }
   // Player B: 40 of 80 in one practice; player C: 2 of 3 (too few to compare).
   await grades(db, await session(db, '2026-09-29', 'practice'), B, 40, 40, { concept_id: concept.power, front_id: front.bear });
@@ -87,7 +101,7 @@ test('GET /api/players/{id}/development: sessions with Wilson intervals, overall
   expect(body.sessions[3].rolling).toBeCloseTo(22 / 30, 10);
 });
 
-test('splits: by concept, front, down and distance, and the strongest and weakest concepts', async () => {
+test('splits: by concept, front, down and distance, hash, quarter, personnel, position played, game or practice; strongest and weakest concepts', async () => {
   const body = (await coach.get(`/api/players/${A}/development`)).body;
   const byName = (list: { value: string; snaps: number; plus: number }[]) => Object.fromEntries(list.map((s) => [s.value, [s.snaps, s.plus]]));
   // Power vs bear: 5 + 5 + 5 + 5 + 5 plus of 25. Inside zone vs over: 1 + 2 + 2 + 3 + 4 = 12 of 25.
@@ -95,6 +109,17 @@ test('splits: by concept, front, down and distance, and the strongest and weakes
   expect(byName(body.splits.front)).toEqual({ bear: [25, 25], over: [25, 12] });
   expect(byName(body.splits.downDistance)).toEqual({ '1st down': [25, 25], '2nd/3rd & short': [25, 12] });
   expect(byName(body.splits.sessionKind)).toEqual({ game: [50, 37] });
+  // Hash (tags in beforeAll; zone plus by game 1, 2, 2, 3, 4): middle = the 25 power snaps, 25 plus;
+  // left = zone in games 0, 2, 4: 15 snaps, 1 + 2 + 4 = 7 plus; right = zone in games 1, 3: 10 snaps, 2 + 3 = 5 plus.
+  expect(byName(body.splits.hash)).toEqual({ middle: [25, 25], left: [15, 7], right: [10, 5] });
+  // Quarter: Q1 = power in games 0–2: 15 snaps, 15 plus; Q2 = zone in games 0–2: 15 snaps, 1 + 2 + 2 = 5;
+  // Q3 = power in games 3–4: 10 snaps, 10 plus; Q4 = zone in games 3–4: 10 snaps, 3 + 4 = 7. Total 50, 37.
+  expect(byName(body.splits.quarter)).toEqual({ '1': [15, 15], '2': [15, 5], '3': [10, 10], '4': [10, 7] });
+  // Personnel (whole games): 11 = games 0–1: 20 snaps, 6 + 7 = 13 plus; 12 = games 2–3: 20 snaps,
+  // 7 + 8 = 15 plus; game 4 not tagged: 10 snaps, 9 plus. Total 50, 37.
+  expect(byName(body.splits.personnel)).toEqual({ '11': [20, 13], '12': [20, 15], untagged: [10, 9] });
+  // Position played: LG = zone in games 3–4: 10 snaps, 3 + 4 = 7 plus; LT = the other 40 snaps, 37 − 7 = 30 plus.
+  expect(byName(body.splits.position)).toEqual({ LT: [40, 30], LG: [10, 7] });
   expect(body.concepts.strongest[0].value).toBe('power');
   expect(body.concepts.weakest[0].value).toBe('inside zone');
 });

@@ -194,16 +194,29 @@ describe('GradeGrid', () => {
     await fixture.whenStable();
     expect(rowText(11)).toContain('Waiting: offline');
 
-    // The browser says it is online again.
+    // The browser says it is online again. Each step takes every PUT pending (http.match removes
+    // them all), so a change sent twice at once would show as two requests, not be dropped unseen.
     window.dispatchEvent(new Event('online'));
-    const first = await nextPut();
-    expect(first.request.url).toBe('/api/snaps/21/grades/11');
-    expect(first.request.body).toEqual({ ...ALL_PLUS, version: 0 });
-    saved(first);
-    const second = await nextPut();
-    expect(second.request.url).toBe('/api/snaps/21/grades/12');
-    saved(second);
+    const puts = () => waitFor(() => { const found = http.match((r) => r.method === 'PUT'); return found.length > 0 && found; }, 'a grade PUT');
+    const firstBatch = await puts();
+    expect(firstBatch.map((r) => r.request.url)).toEqual(['/api/snaps/21/grades/11']);
+    expect(firstBatch[0].request.body).toEqual({ ...ALL_PLUS, version: 0 });
+    saved(firstBatch[0]);
+    const secondBatch = await puts();
+    expect(secondBatch.map((r) => r.request.url)).toEqual(['/api/snaps/21/grades/12']);
+    saved(secondBatch[0]);
     await waitFor(() => localStorage.getItem(queueStorageKey(7)) === null, 'the queue to empty');
+
+    // Once: with the queue empty nothing further is sent, not even on another "online" event.
+    await new Promise((resolve) => setTimeout(resolve, 20));
+    http.expectNone((r) => r.method === 'PUT');
+    window.dispatchEvent(new Event('online'));
+    await new Promise((resolve) => setTimeout(resolve, 20));
+    await fixture.whenStable();
+    http.expectNone((r) => r.method === 'PUT');
+    http.verify();
+    expect(rowText(11)).toContain('Saved');
+    expect(rowText(12)).toContain('Saved');
   });
 
   it('retries a 503 too, and a reload restores the queue over the server data and sends it', async () => {
