@@ -7,7 +7,8 @@ import { loadConfig } from '../../server/core/config';
 
 /**
  * Seeds the invented demo program when the database has no team yet (`npm run seed`). Demo accounts
- * exist only here: production databases are never seeded. Password: DEMO_PASSWORD or trenchwork-demo.
+ * exist only here. Password: DEMO_PASSWORD or trenchwork-demo; in production (a demo server, compose
+ * --profile demo) only with DEMO_PASSWORD set, so the README's public password never reaches a server.
  */
 export async function seedDemo(db: Database, password: string): Promise<boolean> {
   const existing = await db.selectFrom('teams').select('id').limit(1).executeTakeFirst();
@@ -84,7 +85,9 @@ export async function seedDemo(db: Database, password: string): Promise<boolean>
 async function main(): Promise<void> {
   const url = process.env.DATABASE_URL;
   if (!url) throw new Error('DATABASE_URL is not set.');
-  if (process.env.NODE_ENV === 'production') throw new Error('The demo seed never runs in production.');
+  if (process.env.NODE_ENV === 'production' && !process.env.DEMO_PASSWORD) {
+    throw new Error('In production the demo seed runs only with DEMO_PASSWORD set (the README\'s public password must not reach a server).');
+  }
   const handle = createDatabase(url, { max: 2 });
   try {
     const seeded = await seedDemo(handle.db, process.env.DEMO_PASSWORD || 'trenchwork-demo');
