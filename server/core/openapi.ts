@@ -34,6 +34,7 @@ export function buildOpenApiDocument(routes: RouteDefinition[], version: string)
         ...(route.params ? { params: route.params as never } : {}),
         ...(route.query ? { query: route.query as never } : {}),
         ...(route.body ? { body: { content: { 'application/json': { schema: route.body } } } } : {}),
+        ...(route.multipartBody ? { body: { content: { 'multipart/form-data': { schema: route.multipartBody } } } } : {}),
       },
       responses,
       ...(route.access.kind === 'public' ? {} : { security: [{ session: [] }] }),

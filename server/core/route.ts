@@ -63,6 +63,8 @@ export interface RouteDefinition<PS extends ZodType = ZodType, QS extends ZodTyp
   params?: PS;
   query?: QS;
   body?: BS;
+  /** A multipart/form-data body, for the OpenAPI document only: the handler reads the stream itself. */
+  multipartBody?: ZodType;
   responses: Record<number, RouteResponse>;
   /** Development-only routes are never mounted in production. */
   developmentOnly?: boolean;

@@ -2,8 +2,8 @@ import { pipeline } from 'node:stream/promises';
 import type { Readable } from 'node:stream';
 import type { Request, Response } from 'express';
 import multer from 'multer';
-import type { Clip, UploadResponse } from '@shared/api/film';
-import { ANGLES, type Angle, type ClipKind, type ClipState } from '@shared/film';
+import { uploadFieldsSchema, type Clip, type UploadResponse } from '@shared/api/film';
+import type { Angle, ClipKind, ClipState } from '@shared/film';
 import type { AppContext } from '../core/context';
 import { AppError, conflict, notFound, validationFailed } from '../core/errors';
 import { objectKeys } from '../core/object-keys';
@@ -122,11 +122,11 @@ export async function receiveUpload(app: AppContext, req: Request, res: Response
   const storedKeys = files.flatMap((f) => (f.upload?.outcome === 'stored' ? [f.upload.key] : []));
   try {
     if (files.length === 0) throw validationFailed('Choose at least one video file.', { files: 'No file was sent.' });
-    const angleText = typeof req.body?.angle === 'string' && req.body.angle !== '' ? req.body.angle : 'sideline';
-    if (!(ANGLES as readonly string[]).includes(angleText)) throw validationFailed('Unknown camera angle.', { angle: `Angle is one of ${ANGLES.join(', ')}.` });
-    const kindText = typeof req.body?.kind === 'string' && req.body.kind !== '' ? req.body.kind : 'snap';
-    if (kindText !== 'snap' && kindText !== 'tape') throw validationFailed('Kind is snap or tape.', { kind: 'Kind is snap or tape.' });
-    const result = await recordUploads(app, files, { teamId, sessionId, userId, angle: angleText as Angle, kind: kindText });
+    const fields = uploadFieldsSchema.safeParse({ angle: req.body?.angle, kind: req.body?.kind });
+    if (!fields.success) {
+      throw validationFailed('Check the upload fields.', Object.fromEntries(fields.error.issues.map((i) => [String(i.path[0]), i.message])));
+    }
+    const result = await recordUploads(app, files, { teamId, sessionId, userId, angle: fields.data.angle, kind: fields.data.kind });
     const keptKeys = new Set(result.keptKeys);
     const unused = storedKeys.filter((k) => !keptKeys.has(k));
     if (unused.length > 0) await app.storage.remove(unused);

@@ -15,6 +15,7 @@ import {
   tagListItemSchema,
   tapeCutsSchema,
   tapeDetectSchema,
+  uploadFormSchema,
   uploadResponseSchema,
 } from '@shared/api/film';
 import { ROLES, STAFF_ROLES, type Role } from '@shared/roles';
@@ -108,6 +109,7 @@ export function filmRoutes(): RouteDefinition[] {
       tags: ['film'],
       access: sessionAccess,
       params: idParams,
+      multipartBody: uploadFormSchema,
       responses: {
         201: { description: 'Clips received and queued for processing', schema: uploadResponseSchema },
         413: { description: 'A file is over the size limit; nothing from the upload is kept' },

@@ -82,6 +82,19 @@ export const clipSchema = z.object({
 });
 export type Clip = z.infer<typeof clipSchema>;
 
+const emptyAsMissing = (v: unknown) => (v === '' ? undefined : v);
+
+/** The text fields of a clip upload (multipart; send them before the files). */
+export const uploadFieldsSchema = z.object({
+  angle: z.preprocess(emptyAsMissing, z.enum(ANGLES, { message: `Angle is one of ${ANGLES.join(', ')}.` }).default('sideline')),
+  kind: z.preprocess(emptyAsMissing, z.enum(CLIP_KINDS, { message: 'Kind is snap or tape.' }).default('snap')),
+});
+
+/** The multipart body as the OpenAPI document shows it: the fields, then one or more parts named "files". */
+export const uploadFormSchema = uploadFieldsSchema.extend({
+  files: z.array(z.string().describe('a video file (binary part)')).min(1).describe('one part per file, each named "files"'),
+});
+
 export const uploadResponseSchema = z.object({
   clips: z.array(z.object({ id: z.number().int(), status: z.enum(CLIP_STATES), originalName: z.string(), snapId: z.number().int().nullable() })),
   skipped: z.array(z.object({ originalName: z.string(), reason: z.string(), duplicateOfClipId: z.number().int().optional() })),

@@ -133,6 +133,7 @@ test('malformed requests get 4xx and change nothing', async () => {
   expect(badAngle.body.error.fields).toHaveProperty('angle');
   const badKind = await uploadOne(good, undefined, { kind: 'highlight' });
   expect(badKind.status).toBe(422);
+  expect(badKind.body.error.fields).toEqual({ kind: 'Kind is snap or tape.' });
   const after = (await t.ctx.db.selectFrom('clips').select('id').where('session_id', '=', sessionId).execute()).length;
   expect(after).toBe(before);
   outcomes.push({ name: 'no files', outcome: '422' }, { name: 'wrong field', outcome: '422' }, { name: 'bad angle', outcome: '422' }, { name: 'bad kind', outcome: '422' });

@@ -48,6 +48,14 @@ test('POST /api/film-sessions answers 201 with an id, with or without an opponen
   expect(bad.body.error.fields).toEqual(expect.objectContaining({ title: expect.any(String), date: expect.any(String) }));
 });
 
+test('the OpenAPI document shows the upload as multipart: angle, kind, then the files', async () => {
+  const doc = (await analyst.get('/api/openapi.json')).body;
+  const schema = doc.paths['/api/film-sessions/{id}/clips'].post.requestBody.content['multipart/form-data'].schema;
+  expect(Object.keys(schema.properties).sort()).toEqual(['angle', 'files', 'kind']);
+  expect(schema.properties.angle.enum ?? schema.properties.angle.anyOf?.flatMap((a: { enum?: string[] }) => a.enum ?? [])).toEqual(expect.arrayContaining(['sideline', 'end_zone', 'other']));
+  expect(schema.required).toEqual(['files']);
+});
+
 describe('per-snap clips from two angles', () => {
   let sessionId: number;
   let sideline: Clip[];
