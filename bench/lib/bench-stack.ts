@@ -93,7 +93,10 @@ export async function withBenchStack<T>(fn: (stack: BenchStack) => Promise<T>, o
     if (migrated.code !== 0) throw new Error(`migrations failed (${describeExit(migrated)})\n${migrate.logTail()}`);
 
     const serverLog = join(runDir, 'server.log');
-    const server = new ManagedChild(tsxChild('server', entries.server(), REPO_ROOT, env, { file: serverLog }));
+    const serverSpec = tsxChild('server', entries.server(), REPO_ROOT, env, { file: serverLog });
+    // BENCH_CPU_PROFILE_DIR=/some/dir: the server writes a V8 CPU profile there when it stops (open it in Chrome DevTools).
+    if (process.env.BENCH_CPU_PROFILE_DIR) serverSpec.args = ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_CPU_PROFILE_DIR}`, ...serverSpec.args];
+    const server = new ManagedChild(serverSpec);
     children.push(server);
     appendFileSync(join(runDir, 'owner'), `server ${server.pid}\n`);
     await Promise.race([
