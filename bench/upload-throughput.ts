@@ -10,7 +10,8 @@
  *           (multer → content check → SHA-256 → lib-storage Upload, server/film/upload-engine.ts)
  *   direct: lib-storage Upload from this process, through server/core/storage.ts itself, so part
  *           size (8 MiB) and queue size (2) are the server's
- * alternating which goes first in each round. While each API upload runs, the server's VmRSS is
+ *   put:    one PutObject of the whole file streamed with its length (the issue's named baseline)
+ * rotating which goes first in each round. While each API upload runs, the server's VmRSS is
  * read every 100 ms; growth = peak − the reading just before the upload.
  */
 import { randomBytes } from 'node:crypto';
@@ -19,7 +20,8 @@ import { availableParallelism } from 'node:os';
 import type { UploadResponse } from '@shared/api/film';
 import { createDatabase, type Database } from '../db/database';
 import { loadConfig } from '../server/core/config';
-import { createObjectStorage, type ObjectStorage } from '../server/core/storage';
+import { PutObjectCommand, type S3Client } from '@aws-sdk/client-s3';
+import { createObjectStorage, createS3Client, type ObjectStorage } from '../server/core/storage';
 import { createTeamFixture, TEST_PASSWORD } from '../test/support/fixtures';
 import { ApiSession } from './lib/api-session';
 import { ratioOf, type BenchOptions, type BenchResult } from './lib/bench-result';
@@ -53,7 +55,8 @@ async function measure(stack: BenchStack, bytes: number, rounds: number): Promis
   const file = await makeUploadFile(stack.runDir, bytes);
   const warmUpFile = await makeUploadFile(stack.runDir, WARM_UP_BYTES);
   const database = createDatabase(stack.databaseUrl, { max: 2 });
-  const storage = createObjectStorage(loadConfig(stack.env));
+  const s3Client = createS3Client(loadConfig(stack.env));
+  const storage = createObjectStorage(loadConfig(stack.env), s3Client);
   try {
     const team = await createTeamFixture(database.db, 'Bench');
     const api = new ApiSession(stack.appUrl);
@@ -65,15 +68,22 @@ async function measure(stack: BenchStack, bytes: number, rounds: number): Promis
     progress('warm-up uploads');
     await apiUpload(api, database.db, storage, await newSession('Warm-up'), warmUpFile);
     await directUpload(storage, warmUpFile);
+    await putObjectUpload(s3Client, storage, warmUpFile);
 
     const apiRounds: ApiRound[] = [];
     const direct: number[] = [];
     const directCpu: Record<string, number>[] = [];
+    const put: number[] = [];
     const pids = { bench: process.pid, server: stack.serverPid, s3: stack.s3Pid };
+    const ways = ['api', 'direct', 'put'] as const;
     for (let round = 1; round <= rounds; round++) {
-      const apiFirst = round % 2 === 1;
-      for (const way of apiFirst ? (['api', 'direct'] as const) : (['direct', 'api'] as const)) {
-        if (way === 'direct') {
+      // Each round starts with another way, so no way always runs on a warmer (or busier) machine.
+      for (const way of [...ways.slice((round - 1) % ways.length), ...ways.slice(0, (round - 1) % ways.length)]) {
+        if (way === 'put') {
+          const ms = await putObjectUpload(s3Client, storage, file);
+          put.push(bytes / MiB / (ms / 1000));
+          progress(`round ${round} PutObject: ${(ms / 1000).toFixed(2)} s, ${put.at(-1)!.toFixed(1)} MiB/s`);
+        } else if (way === 'direct') {
           const { result: ms, cpu } = await cpuDuring({ bench: pids.bench, s3: pids.s3 }, () => directUpload(storage, file));
           directCpu.push(cpu);
           direct.push(bytes / MiB / (ms / 1000));
@@ -92,10 +102,20 @@ async function measure(stack: BenchStack, bytes: number, rounds: number): Promis
 
     const apiMedian = median(apiRounds.map((r) => r.mibPerSecond));
     const directMedian = median(direct);
+    const putMedian = median(put);
     const worst = apiRounds.reduce((a, b) => (b.rssMax - b.rssBefore > a.rssMax - a.rssBefore ? b : a));
     const size = bytes >= GiB ? `${bytes / GiB} GiB` : `${bytes / MiB} MiB`;
     const list = (values: number[]) => values.map((v) => v.toFixed(1)).join(', ');
     return [
+      {
+        name: `upload ${size} via API (multipart) vs direct PutObject`,
+        value: apiMedian,
+        unit: 'MiB/s',
+        baseline: putMedian,
+        ratio: ratioOf(apiMedian, putMedian),
+        goal: '>= 0.8',
+        note: `ratio = api/PutObject (one request, the file streamed with its length, from this process); median of ${rounds} round(s) each; PutObject ${list(put)} MiB/s`,
+      },
       {
         name: `upload ${size} via API (multipart) vs direct S3 Upload`,
         value: apiMedian,
@@ -143,6 +163,16 @@ async function directUpload(storage: ObjectStorage, file: string): Promise<numbe
   const key = `bench/direct/${randomBytes(8).toString('hex')}`;
   const { ms } = await timed(() => storage.upload(key, createReadStream(file), 'application/octet-stream').done);
   await expectStored(storage, key, statSync(file).size, key);
+  await storage.remove([key]);
+  return ms;
+}
+
+/** The issue's named baseline: one PutObject of the whole file, streamed with its length. */
+async function putObjectUpload(client: S3Client, storage: ObjectStorage, file: string): Promise<number> {
+  const key = `bench/put/${randomBytes(8).toString('hex')}`;
+  const size = statSync(file).size;
+  const { ms } = await timed(() => client.send(new PutObjectCommand({ Bucket: storage.bucket, Key: key, Body: createReadStream(file), ContentLength: size, ContentType: 'application/octet-stream' })));
+  await expectStored(storage, key, size, key);
   await storage.remove([key]);
   return ms;
 }
