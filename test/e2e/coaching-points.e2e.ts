@@ -10,8 +10,8 @@ import { createSession, waitForClips } from '../support/film';
 
 /**
  * Monday in a real browser: a coach marks a moment of a clip for the guard; the player signs in on a
- * phone, finds it in his queue, plays from the marker, replies and says "Got it"; the coach sees the
- * reply and the receipt.
+ * phone, finds it in his queue, plays from its marker under the seek bar, replies and says "Got it";
+ * the coach sees the reply and the receipt on his own screen.
  */
 let h: BrowserHarness;
 let team: TeamFixture;
@@ -69,6 +69,14 @@ test('a coaching point travels from the coach to the player and back', async () 
   expect(stored).toHaveLength(1);
   expect(stored[0]!.player_id).toBe(team.ownPlayerId);
   expect(Math.abs(stored[0]!.at_ms - 2500)).toBeLessThanOrEqual(50);
+  const pointAt = stored[0]!.at_ms / 1000;
+  const { name: playerName } = await h.t.ctx.db.selectFrom('players').select('name').where('id', '=', team.ownPlayerId).executeTakeFirstOrThrow();
+  const { name: playerAccountName } = await h.t.ctx.db.selectFrom('users').select('name').where('id', '=', team.accounts.player.userId).executeTakeFirstOrThrow();
+  // Before the player has seen it: his name unticked, nobody has got it, no reply.
+  const pointOnCoachScreen = coach.getByTestId('thread').filter({ hasText: 'Hands inside' });
+  await pointOnCoachScreen.getByText('0 of 1 got it').waitFor();
+  expect(await pointOnCoachScreen.locator('.target', { hasText: playerName }).textContent()).toContain(`${playerName}, not yet`);
+  expect(await pointOnCoachScreen.locator('.replies li').count()).toBe(0);
 
   const player = await h.newPage({ width: 390, height: 844 });
   await signIn(player, team.accounts.player.email);
@@ -78,8 +86,28 @@ test('a coaching point travels from the coach to the player and back', async () 
   const thread = player.getByTestId('thread').filter({ hasText: 'Hands inside' });
   await thread.waitFor();
   await player.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1, null, { timeout: 20_000 });
-  await thread.getByRole('button', { name: /^Play from/ }).click();
-  await player.waitForFunction(() => Math.abs((document.querySelector('video') as HTMLVideoElement).currentTime - 2.5) < 0.15, null, { timeout: 10_000 });
+  const video = player.locator('video').first();
+  // Starting well away from the point's moment, so landing there can only come from the marker.
+  expect(await video.evaluate((v: HTMLVideoElement) => v.currentTime)).toBeLessThan(pointAt - 1);
+  const marker = player.getByRole('group', { name: 'Coaching points along the clip' }).getByRole('button', { name: /^Play from .*Hands inside/ });
+  // The marker sits under the seek bar at the point's moment.
+  const bar = await player.getByRole('slider', { name: 'Position in the video' }).boundingBox();
+  const mark = await marker.boundingBox();
+  const duration = await video.evaluate((v: HTMLVideoElement) => v.duration);
+  const expectedX = bar!.x + (pointAt / duration) * bar!.width;
+  const markerX = mark!.x + mark!.width / 2;
+  expect(Math.abs(markerX - expectedX)).toBeLessThanOrEqual(12);
+  // Where the first seek after the click lands, read at the moment it lands (playback moves on after).
+  await video.evaluate((v: HTMLVideoElement) => {
+    (window as unknown as { landed: Promise<number> }).landed = new Promise((resolve) => v.addEventListener('seeked', () => resolve(v.currentTime), { once: true }));
+  });
+  await marker.click();
+  const landed = await player.evaluate(() => (window as unknown as { landed: Promise<number> }).landed);
+  console.log(`Coaching point at ${pointAt} s: its seek-bar marker landed the video at ${landed.toFixed(3)} s (marker ${(markerX - expectedX).toFixed(1)} px from that moment of the bar).`);
+  expect(Math.abs(landed - pointAt)).toBeLessThanOrEqual(0.3);
+  await expect(marker.getAttribute('aria-current')).resolves.toBe('true');
+  // It plays from there, not just jumps.
+  await player.waitForFunction((from) => (document.querySelector('video') as HTMLVideoElement).currentTime > from + 0.2, landed, { timeout: 10_000 });
   await thread.getByRole('button', { name: 'Reply' }).click();
   await thread.getByLabel('Your reply').fill('Got it, coach: thumbs up.');
   await thread.getByRole('button', { name: /Send|Reply/ }).last().click();
@@ -89,7 +117,15 @@ test('a coaching point travels from the coach to the player and back', async () 
 
   await coach.reload();
   const coachThread = coach.getByTestId('thread').filter({ hasText: 'Hands inside' });
-  await coachThread.getByText('Got it, coach: thumbs up.').waitFor();
+  // The player's reply, under the point, signed as a player's.
+  const reply = coachThread.locator('.replies li').filter({ hasText: 'Got it, coach: thumbs up.' });
+  await reply.waitFor();
+  expect((await reply.locator('.author').textContent())?.trim()).toBe(`${playerAccountName} (player)`);
+  // The receipt: his name ticked and the tally moved from 0 to 1.
+  await coachThread.getByText('1 of 1 got it').waitFor();
+  const target = coachThread.locator('.target', { hasText: playerName });
+  expect(await target.getAttribute('class')).toContain('got');
+  expect(await target.textContent()).toContain(`${playerName}, got it`);
   const ack = await h.t.ctx.db.selectFrom('comment_targets').select('acknowledged_at').where('player_id', '=', team.ownPlayerId).executeTakeFirstOrThrow();
   expect(ack.acknowledged_at).not.toBeNull();
   await player.context().close();
