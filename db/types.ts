@@ -201,6 +201,8 @@ export interface GradingSchemesTable {
 
 export interface DepthChartEntriesTable {
   season_id: number;
+  /** The chart saved for this week is in force until a later week's chart (0: the base chart). */
+  week: Generated<number>;
   position: string;
   rank: number;
   player_id: number;
@@ -209,6 +211,7 @@ export interface DepthChartEntriesTable {
 export interface DepthChartChangesTable {
   id: Generated<number>;
   season_id: number;
+  week: Generated<number>;
   changed_by: number | null;
   reason: string | null;
   before: ColumnType<unknown, string, string>;

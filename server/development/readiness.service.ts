@@ -1,7 +1,8 @@
 import { sql } from 'kysely';
+import { chartWeekInForce } from '@shared/depth-chart';
 import { linemanResults, rateWithInterval, resultScores, unitGrade, weakestLinkCounts } from '@shared/stats';
 import type { AppContext } from '../core/context';
-import { startersOf } from '../grading/depth-chart.service';
+import { starterCountsByWeek } from '../grading/depth-chart.repository';
 import { currentScheme } from '../grading/scheme.service';
 import { resolveSeason } from '../teams/teams.service';
 
@@ -69,9 +70,9 @@ export async function readinessMatrix(app: AppContext, teamId: number, seasonId?
  */
 export async function lineDashboard(app: AppContext, teamId: number, seasonId?: number) {
   const season = await resolveSeason(app, teamId, seasonId);
-  const [snapRows, missed, starters, players] = await Promise.all([
-    sql<{ session_id: number; title: string; date: string; listed: number; plus_ids: number[]; minus_ids: number[] }>`
-      SELECT fs.id AS session_id, fs.title, fs.date::text AS date,
+  const [snapRows, missed, startersByWeek, players] = await Promise.all([
+    sql<{ session_id: number; title: string; date: string; week: number | null; listed: number; plus_ids: number[]; minus_ids: number[] }>`
+      SELECT fs.id AS session_id, fs.title, fs.date::text AS date, fs.week,
              (SELECT count(*)::int FROM snap_participants sp WHERE sp.snap_id = g.snap_id) AS listed,
              coalesce(array_agg(g.player_id) FILTER (WHERE g.result = 'plus'), '{}') AS plus_ids,
              coalesce(array_agg(g.player_id) FILTER (WHERE g.result = 'minus'), '{}') AS minus_ids
@@ -84,14 +85,17 @@ export async function lineDashboard(app: AppContext, teamId: number, seasonId?: 
       FROM final_grades g JOIN film_sessions fs ON fs.id = g.session_id
       WHERE fs.team_id = ${teamId} AND fs.season_id = ${season.id} AND g.assignment = 'missed'
       GROUP BY g.position, g.missed_reason ORDER BY n DESC`.execute(app.db),
-    startersOf(app.db, season.id),
+    starterCountsByWeek(app.db, season.id),
     app.db.selectFrom('players').select(['id', 'name']).where('team_id', '=', teamId).execute(),
   ]);
-  // A snap with no listed linemen was played by the depth chart's starters (as on the Grading Desk).
+  // A snap with no listed linemen was played by the starters of the chart in force at its game's
+  // week (as on the Grading Desk).
+  const starterCount = new Map(startersByWeek.map((w) => [w.week, Number(w.starters)]));
+  const startersAt = (week: number | null) => starterCount.get(chartWeekInForce([...starterCount.keys()], week) ?? -1) ?? 0;
   const snaps = snapRows.rows.map((r) => {
     const plusIds = r.plus_ids.map(Number);
     const minusIds = r.minus_ids.map(Number);
-    return { ...r, onField: r.listed > 0 ? r.listed : starters.length, graded: plusIds.length + minusIds.length, plus: plusIds.length, plusIds, minusIds };
+    return { ...r, onField: r.listed > 0 ? r.listed : startersAt(r.week), graded: plusIds.length + minusIds.length, plus: plusIds.length, plusIds, minusIds };
   });
   const games = [...new Map(snaps.map((s) => [s.session_id, s])).values()].map((game) => {
     const unit = unitGrade(snaps.filter((s) => s.session_id === game.session_id));

@@ -8,8 +8,12 @@ import { findSnapContext, gradesQuery } from './grades.repository';
 import { startersOf } from './depth-chart.service';
 import { getScheme } from './scheme.service';
 
-/** Who blocked on each snap: the snap's own list where one was recorded, else the depth chart starters. */
-export async function participantsBySnap(db: Database, sessionId: number, seasonId: number) {
+/**
+ * Who blocked on each snap: the snap's own list where one was recorded, else the starters of the
+ * depth chart in force at the session's week (a session without a week: the current chart), so
+ * regrading an old game shows who started that week, not today's starters.
+ */
+export async function participantsBySnap(db: Database, sessionId: number, seasonId: number, week: number | null) {
   const [snaps, listed, starters] = await Promise.all([
     db.selectFrom('snaps').select(['id', 'order']).where('session_id', '=', sessionId).orderBy('order').execute(),
     db
@@ -18,7 +22,7 @@ export async function participantsBySnap(db: Database, sessionId: number, season
       .select(['snap_participants.snap_id', 'snap_participants.player_id', 'snap_participants.position'])
       .where('snaps.session_id', '=', sessionId)
       .execute(),
-    startersOf(db, seasonId),
+    startersOf(db, seasonId, week),
   ]);
   return snaps.map((snap) => {
     const own = listed.filter((p) => p.snap_id === snap.id).map((p) => ({ playerId: p.player_id, position: p.position as Position }));
@@ -27,11 +31,11 @@ export async function participantsBySnap(db: Database, sessionId: number, season
 }
 
 export async function loadDesk(app: AppContext, sessionId: number, graderId: number): Promise<Desk> {
-  const session = await app.db.selectFrom('film_sessions').select(['id', 'team_id', 'season_id', 'grading_locked']).where('id', '=', sessionId).executeTakeFirst();
+  const session = await app.db.selectFrom('film_sessions').select(['id', 'team_id', 'season_id', 'week', 'grading_locked']).where('id', '=', sessionId).executeTakeFirst();
   if (!session) throw notFound('That film session');
   const [scheme, snaps, grades, players] = await Promise.all([
     getScheme(app, session.team_id),
-    participantsBySnap(app.db, sessionId, session.season_id),
+    participantsBySnap(app.db, sessionId, session.season_id, session.week),
     gradesQuery(app.db).innerJoin('snaps', 'snaps.id', 'grades.snap_id').where('snaps.session_id', '=', sessionId).execute(),
     app.db
       .selectFrom('roster_entries as r')

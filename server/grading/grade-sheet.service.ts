@@ -23,7 +23,7 @@ export async function buildGradeSheet(app: AppContext, sessionId: number, viewer
   const session = await app.db
     .selectFrom('film_sessions')
     .innerJoin('teams', 'teams.id', 'film_sessions.team_id')
-    .select(['film_sessions.team_id', 'film_sessions.season_id', 'teams.share_grades_with_players'])
+    .select(['film_sessions.team_id', 'film_sessions.season_id', 'film_sessions.week', 'teams.share_grades_with_players'])
     .where('film_sessions.id', '=', sessionId)
     .executeTakeFirst();
   if (!session) throw notFound('That film session');
@@ -35,7 +35,7 @@ export async function buildGradeSheet(app: AppContext, sessionId: number, viewer
     penaltiesByType(app.db, sessionId),
     gradeNotes(app.db, sessionId),
     snapTotals(app.db, sessionId),
-    participantsBySnap(app.db, sessionId, session.season_id),
+    participantsBySnap(app.db, sessionId, session.season_id, session.week),
     currentScheme(app.db, session.team_id),
     app.db
       .selectFrom('players as p')

@@ -1,5 +1,6 @@
 import { sql } from 'kysely';
 import type { Database } from '../../db/database';
+import { chartWeekInForceSql } from './depth-chart.repository';
 
 export function findSnapContext(db: Database, snapId: number) {
   return db
@@ -49,7 +50,8 @@ export function findGrade(db: Database, snapId: number, playerId: number, grader
  * What saving one grade needs to know, in one round trip: the snap's session and its lock, whether
  * the player is on the session's team, the team's current scheme (no row: the team never saved one),
  * and where the player lined up on the snap: the snap's own participants when they list him, else
- * his rank-1 spot on the depth chart among `starterPositions` (the first of them in that order).
+ * his rank-1 spot among `starterPositions` (the first of them in that order) on the depth chart in
+ * force at the session's week (a session without a week: the latest chart).
  */
 export function findGradeContext(db: Database, snapId: number, playerId: number, starterPositions: readonly string[]) {
   return db
@@ -85,6 +87,7 @@ export function findGradeContext(db: Database, snapId: number, playerId: number,
             .selectFrom('depth_chart_entries')
             .select('depth_chart_entries.position')
             .whereRef('depth_chart_entries.season_id', '=', 'film_sessions.season_id')
+            .where('depth_chart_entries.week', '=', chartWeekInForceSql(sql.ref('film_sessions.season_id'), sql.ref('film_sessions.week')))
             .where('depth_chart_entries.rank', '=', 1)
             .where('depth_chart_entries.player_id', '=', playerId)
             .where('depth_chart_entries.position', 'in', [...starterPositions])

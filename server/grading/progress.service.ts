@@ -6,10 +6,10 @@ import { currentScheme } from './scheme.service';
 
 /** Cells graded / cells expected (one per lineman on the field per snap), per grader, and the lock. */
 export async function gradingProgress(app: AppContext, sessionId: number): Promise<GradingProgress> {
-  const session = await app.db.selectFrom('film_sessions').select(['team_id', 'season_id', 'grading_locked']).where('id', '=', sessionId).executeTakeFirst();
+  const session = await app.db.selectFrom('film_sessions').select(['team_id', 'season_id', 'week', 'grading_locked']).where('id', '=', sessionId).executeTakeFirst();
   if (!session) throw notFound('That film session');
   const [snaps, scheme, perGrader, finals, history] = await Promise.all([
-    participantsBySnap(app.db, sessionId, session.season_id),
+    participantsBySnap(app.db, sessionId, session.season_id, session.week),
     currentScheme(app.db, session.team_id),
     app.db
       .selectFrom('grades')

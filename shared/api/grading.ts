@@ -184,15 +184,45 @@ export const deskSchema = z.object({
 export type Desk = z.infer<typeof deskSchema>;
 
 export const depthChartPositions = ['LT', 'LG', 'C', 'RG', 'RT', 'TE'] as const;
+/** A chart week: 0 is the base (preseason) chart; the same range as a film session's week. */
+export const chartWeekSchema = z.coerce.number().int().min(0).max(25);
 export const depthChartSchema = z.object({
   seasonId: z.number().int(),
   positions: z.record(z.string(), z.array(z.object({ playerId: z.number().int(), name: z.string(), jersey: z.number().int().nullable() }))),
+  /** The last change to the chart shown (its saved week). */
   updatedAt: z.string().nullable(),
+  /** The week asked for; without one, the current week (the latest saved, 0 when none is). */
+  week: z.number().int(),
+  /** The saved week whose chart is shown: below `week` when it carries forward; null when none is in force. */
+  inForceFromWeek: z.number().int().nullable(),
+  /** Every week of the season with a chart of its own, ascending. */
+  savedWeeks: z.array(z.number().int()),
+  /** The highest week of the season's games (null: no game has a week yet), so a week picker knows how far to go. */
+  lastGameWeek: z.number().int().nullable(),
 });
 export type DepthChart = z.infer<typeof depthChartSchema>;
+export const depthChartQuerySchema = z.object({ seasonId: idSchema.optional(), week: chartWeekSchema.optional() });
 export const depthChartInputSchema = z.object({
   seasonId: idSchema.optional(),
+  /** The week saved for (its chart then runs until a later week's); default the current (latest saved) week. */
+  week: chartWeekSchema.optional(),
   // Only the positions sent are replaced (partialRecord: zod 4's record of an enum wants every key).
   positions: z.partialRecord(z.enum(depthChartPositions), z.array(idSchema).max(8)),
   reason: z.string().trim().max(300).optional(),
 });
+const chartEntrySchema = z.object({ position: z.string(), rank: z.number().int(), playerId: z.number().int() });
+export const depthChartHistorySchema = z.object({
+  changes: z.array(
+    z.object({
+      id: z.number().int(),
+      /** The week the change was saved for. */
+      week: z.number().int(),
+      by: z.string(),
+      at: z.string(),
+      reason: z.string().nullable(),
+      before: z.array(chartEntrySchema),
+      after: z.array(chartEntrySchema),
+    }),
+  ),
+});
+export type DepthChartHistory = z.infer<typeof depthChartHistorySchema>;
