@@ -52,3 +52,11 @@ export const DEMO_DEPTH_CHART: Record<string, number[]> = {
   RT: [78, 79, 75],
   TE: [88, 85, 81],
 };
+
+/** Mid-season changes by jersey: from week 4 Silas Wendroth (#68) starts at RG, Eli Brannock (#64) behind him. */
+export const DEMO_CHART_CHANGES: readonly { week: number; positions: Record<string, number[]>; reason: string }[] = [
+  { week: 4, positions: { RG: [68, 64, 65] }, reason: 'Wendroth won the right guard battle in practice; Brannock rotates in' },
+];
+
+/** The right guard who starts the last demo weeks (he gets coaching points on the last game's film). */
+export const DEMO_LATE_SEASON_RG = 68;

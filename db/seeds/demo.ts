@@ -1,7 +1,7 @@
 import { createDatabase, type Database } from '../database';
 import { hashPassword } from '../../server/core/password-hashing';
-import { DEMO_DEPTH_CHART, DEMO_PLAYER, DEMO_ROSTER, DEMO_STAFF, DEMO_TEAM_NAME } from './demo-roster';
-import { generateSeasonFilm, setDepthChart } from './film-and-grades';
+import { DEMO_CHART_CHANGES, DEMO_DEPTH_CHART, DEMO_LATE_SEASON_RG, DEMO_PLAYER, DEMO_ROSTER, DEMO_STAFF, DEMO_TEAM_NAME } from './demo-roster';
+import { generateSeasonFilm, setDepthChart, setWeekChart } from './film-and-grades';
 import { seedDemoFilm } from './demo-film';
 import { loadConfig } from '../../server/core/config';
 
@@ -61,9 +61,13 @@ export async function seedDemo(db: Database, password: string): Promise<boolean>
         .executeTakeFirstOrThrow();
       await trx.insertInto('memberships').values({ user_id: user.id, team_id: team.id, role: account.role, player_id: account.playerId }).execute();
     }
-    const chart = Object.fromEntries(Object.entries(DEMO_DEPTH_CHART).map(([position, jerseys]) => [position, jerseys.map((j) => playerIdByJersey.get(j)!)]));
-    await setDepthChart(trx, season.id, chart);
+    const byJersey = (order: Record<string, number[]>) => Object.fromEntries(Object.entries(order).map(([position, jerseys]) => [position, jerseys.map((j) => playerIdByJersey.get(j)!)]));
+    await setDepthChart(trx, season.id, byJersey(DEMO_DEPTH_CHART));
     const userId = async (email: string) => (await trx.selectFrom('users').select('id').where('email', '=', email).executeTakeFirstOrThrow()).id;
+    // The coordinator's mid-season changes, in the history like any other (the film below follows them).
+    for (const change of DEMO_CHART_CHANGES) {
+      await setWeekChart(trx, season.id, change.week, byJersey(change.positions), { userId: await userId('coordinator@trenchwork.test'), reason: change.reason });
+    }
     // Six graded weeks of the 2026 season so far: games on Fridays from 4 September, two practices a week.
     await generateSeasonFilm(trx, {
       teamId: team.id,
@@ -102,7 +106,7 @@ async function main(): Promise<void> {
         .innerJoin('players', 'players.id', 'roster_entries.player_id')
         .select('players.id')
         .where('players.team_id', '=', team.id)
-        .where('roster_entries.jersey', '=', 64)
+        .where('roster_entries.jersey', '=', DEMO_LATE_SEASON_RG)
         .executeTakeFirstOrThrow();
       console.log(`Demo film: ${await seedDemoFilm(db, loadConfig(), team.id, coach.id, { player: player.player_id!, other: other.id })}.`);
     }

@@ -1,5 +1,7 @@
 import { DEFAULT_TAG_LISTS } from '@shared/film';
+import { chartWeekInForce } from '@shared/depth-chart';
 import { snapResult, type GradeMarks, type Mark } from '@shared/grading';
+import { chartRows, copyChartWeek, insertChartChange, replacePositions, savedChartWeeks } from '../../server/grading/depth-chart.repository';
 import type { Database } from '../database';
 
 /**
@@ -71,11 +73,17 @@ export async function generateSeasonFilm(db: Database, o: GradeGenerationOptions
   const rand = prng(o.seed);
   const pick = <T>(list: readonly T[]): T => list[Math.floor(rand() * list.length)]!;
   const tags = await tagIds(db, o.teamId);
-  const chart = await db.selectFrom('depth_chart_entries').select(['position', 'rank', 'player_id']).where('season_id', '=', o.seasonId).orderBy('rank').execute();
-  const starters = ['LT', 'LG', 'C', 'RG', 'RT'].map((position) => chart.find((c) => c.position === position && c.rank === 1)).filter((c): c is NonNullable<typeof c> => Boolean(c));
-  const backups = chart.filter((c) => c.rank === 2);
+  const chart = await db.selectFrom('depth_chart_entries').select(['week', 'position', 'rank', 'player_id']).where('season_id', '=', o.seasonId).orderBy('week').orderBy('rank').execute();
+  const savedWeeks = [...new Set(chart.map((c) => c.week))];
+  // Each week's film follows the chart in force that week (a mid-season change shows on the field).
+  const lineupAt = (week: number) => {
+    const inForce = chart.filter((c) => c.week === chartWeekInForce(savedWeeks, week));
+    const starters = ['LT', 'LG', 'C', 'RG', 'RT'].map((position) => inForce.find((c) => c.position === position && c.rank === 1)).filter((c): c is NonNullable<typeof c> => Boolean(c));
+    return { starters, backups: inForce.filter((c) => c.rank === 2) };
+  };
   const linemen = new Map<number, Lineman>();
-  for (const c of [...starters, ...backups]) {
+  for (const c of savedWeeks.flatMap((w) => { const l = lineupAt(w); return [...l.starters, ...l.backups]; })) {
+    if (linemen.has(c.player_id)) continue;
     // Under the strict rule a snap is plus only when the assignment and every part are plus, so each
     // part is plus far more often than the snap: about 0.93 per part gives a 70–85 % lineman.
     const base = 0.885 + rand() * 0.085;
@@ -96,6 +104,7 @@ export async function generateSeasonFilm(db: Database, o: GradeGenerationOptions
   const gradeRows: Record<string, unknown>[] = [];
   const opponents = o.opponents ?? INVENTED_OPPONENTS;
   for (let week = 1; week <= o.weeks; week += 1) {
+    const { starters, backups } = lineupAt(week);
     const gameDate = addDays(o.seasonStart, (week - 1) * 7);
     const plans = [
       { kind: 'game', date: gameDate, title: `Week ${week} vs ${opponents[(week - 1) % opponents.length]}`, opponent: opponents[(week - 1) % opponents.length]! },
@@ -216,7 +225,21 @@ function flip(mark: Mark | null): Mark | null {
   return mark === 'plus' ? 'minus' : mark === 'minus' ? 'plus' : null;
 }
 
-/** Sets a season's depth chart from the roster: the first listed player at each spot starts. */
+/**
+ * Saves a week's chart as the API does: the chart carried into the week, with `positions` replaced,
+ * and a history entry with who and why.
+ */
+export async function setWeekChart(db: Database, seasonId: number, week: number, positions: Record<string, number[]>, by: { userId: number; reason: string }): Promise<void> {
+  const inForce = chartWeekInForce(await savedChartWeeks(db, seasonId), week);
+  const before = inForce === null ? [] : await chartRows(db, seasonId, inForce);
+  if (inForce !== null && inForce !== week) await copyChartWeek(db, seasonId, inForce, week);
+  await replacePositions(db, seasonId, week, positions);
+  const after = await chartRows(db, seasonId, week);
+  const shape = (list: typeof before) => JSON.stringify(list.map((r) => ({ position: r.position, rank: r.rank, playerId: r.player_id })));
+  await insertChartChange(db, { seasonId, week, userId: by.userId, reason: by.reason, before: shape(before), after: shape(after) });
+}
+
+/** Sets a season's base (week 0) depth chart from the roster: the first listed player at each spot starts. */
 export async function setDepthChart(db: Database, seasonId: number, order: Record<string, number[]>): Promise<void> {
   const rows = Object.entries(order).flatMap(([position, ids]) => ids.map((player_id, i) => ({ season_id: seasonId, position, rank: i + 1, player_id })));
   await db.deleteFrom('depth_chart_entries').where('season_id', '=', seasonId).execute();
