@@ -1,8 +1,9 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { chartWeekLabel } from '@shared/depth-chart';
 import { describeChange, type ChartChange } from './describe-change';
 
-/** Who changed the depth chart, when and why, and what moved. */
+/** Who changed the depth chart, when, why and for which week, and what moved. */
 @Component({
   selector: 'tw-change-history',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -14,7 +15,7 @@ import { describeChange, type ChartChange } from './describe-change';
       <ol class="changes" data-testid="history">
         @for (row of rows(); track row.change.id) {
           <li>
-            <p class="who"><strong>{{ row.change.by }}</strong> · {{ row.change.at | date: 'EEE d MMM y, HH:mm' }}</p>
+            <p class="who"><strong>{{ row.change.by }}</strong> · {{ row.change.at | date: 'EEE d MMM y, HH:mm' }} · <span class="week">{{ row.week }}</span></p>
             <p class="why">{{ row.change.reason ? '“' + row.change.reason + '”' : 'No reason given' }}</p>
             @if (row.lines.length > 0) {
               <ul>
@@ -57,5 +58,5 @@ import { describeChange, type ChartChange } from './describe-change';
 export class ChangeHistory {
   readonly changes = input.required<readonly ChartChange[]>();
   readonly nameOf = input.required<(playerId: number) => string>();
-  protected readonly rows = computed(() => this.changes().map((change) => ({ change, lines: describeChange(change, this.nameOf()) })));
+  protected readonly rows = computed(() => this.changes().map((change) => ({ change, week: `for ${chartWeekLabel(change.week)}`, lines: describeChange(change, this.nameOf()) })));
 }

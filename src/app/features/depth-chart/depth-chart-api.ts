@@ -7,6 +7,8 @@ import { inlineErrors } from '../../core/http/inline-errors';
 
 export interface DepthChartSave {
   seasonId?: number;
+  /** The week saved for (its chart runs until a later week's); omitted: the current week. */
+  week?: number;
   /** Only the positions sent are replaced. */
   positions: Partial<Record<Position, number[]>>;
   reason?: string;

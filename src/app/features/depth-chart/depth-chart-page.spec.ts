@@ -16,9 +16,14 @@ import { TEAM } from '../progress/development-test-data';
 import { DepthChartPage } from './depth-chart-page';
 
 const entry = (playerId: number, name: string, jersey: number) => ({ playerId, name, jersey });
+// The current chart: saved for week 4 (the base chart is week 0); the season's last game was week 5.
 const CHART: DepthChart = {
   seasonId: 5,
   updatedAt: '2026-09-01T10:00:00.000Z',
+  week: 4,
+  inForceFromWeek: 4,
+  savedWeeks: [0, 4],
+  lastGameWeek: 5,
   positions: {
     LT: [entry(11, 'Tomas Varga', 74)],
     LG: [entry(12, 'Rowan Pike', 66), entry(22, 'Abe Lund', 63)],
@@ -36,6 +41,7 @@ const HISTORY = {
   changes: [
     {
       id: 4,
+      week: 4,
       by: 'Dana Keel',
       at: '2026-09-01T10:00:00.000Z',
       reason: 'Pike back from injury',
@@ -99,7 +105,7 @@ describe('DepthChartPage', () => {
     reason.dispatchEvent(new Event('input'));
     save.click();
     const put = http.expectOne((r) => r.method === 'PUT' && r.url === '/api/teams/1/depth-chart');
-    expect(put.request.body).toEqual({ seasonId: 5, positions: { LG: [22, 12] }, reason: 'Lund won the week of practice' });
+    expect(put.request.body).toEqual({ seasonId: 5, week: 4, positions: { LG: [22, 12] }, reason: 'Lund won the week of practice' });
     put.flush({ ...CHART, positions: { ...CHART.positions, LG: [CHART.positions['LG'][1], CHART.positions['LG'][0]] } });
     await answer('/api/teams/1/depth-chart/history', HISTORY);
     await fixture.whenStable();
@@ -124,7 +130,7 @@ describe('DepthChartPage', () => {
     await render('coach');
     expect(element().textContent).toContain('Read only');
     expect(element().querySelector('.handle')).toBeNull();
-    expect(element().querySelector('select')).toBeNull();
+    expect(element().querySelector('select.add')).toBeNull();
     drop('LG', 1, 'LG', 0);
     await fixture.whenStable();
     expect(names('LG')).toEqual(['#66 Rowan Pike', '#63 Abe Lund']);
@@ -132,5 +138,61 @@ describe('DepthChartPage', () => {
     expect(history).toContain('Dana Keel');
     expect(history).toContain('“Pike back from injury”');
     expect(history).toContain('LG: Rowan Pike, Abe Lund (was Abe Lund, Rowan Pike)');
+    expect(history).toContain('for Week 4');
+  });
+
+  describe('week picker', () => {
+    const picker = () => element().querySelector('select[name=week]') as HTMLSelectElement;
+    const status = () => element().querySelector('[data-testid=week-status] span')?.textContent?.replace(/\s+/g, ' ').trim() ?? '';
+    /** Picks a week and answers the GET that asks for it. */
+    async function pickWeek(week: number, chart: DepthChart) {
+      picker().value = String(week);
+      picker().dispatchEvent(new Event('change'));
+      const request = await waitFor(() => (TestBed.tick(), http.match((r) => r.url === '/api/teams/1/depth-chart' && r.params.get('week') === String(week))[0]), `week ${week}`);
+      expect(request.request.params.get('seasonId')).toBe('5');
+      request.flush(chart);
+      await fixture.whenStable();
+    }
+
+    it('offers week 0 (base) to the week after the last game, marks saved weeks in words, and opens on the current week', async () => {
+      await render('coach');
+      const options = Array.from(picker().options, (o) => o.textContent?.trim());
+      // lastGameWeek 5 → weeks 0…6.
+      expect(options).toEqual(['Week 0 (base) · own chart', 'Week 1', 'Week 2', 'Week 3', 'Week 4 · own chart', 'Week 5', 'Week 6']);
+      expect(picker().value).toBe('4');
+      expect(status()).toBe("Week 4's own chart. In force from week 4 on.");
+    });
+
+    it('shows "carried from week 0" for week 2, and saves the dragged order for week 2', async () => {
+      await render('coordinator');
+      // Week 2 has no chart of its own: the base chart (Pike starting at LG) is in force.
+      await pickWeek(2, { ...CHART, week: 2, inForceFromWeek: 0 });
+      expect(picker().value).toBe('2');
+      expect(status()).toBe('Carried from week 0. Week 2 has no chart of its own. Saving gives week 2 its own chart, in force for weeks 2–3.');
+      drop('LG', 1, 'LG', 0);
+      await fixture.whenStable();
+      expect(picker().disabled).toBe(true);
+      expect(element().textContent).toContain('Saves the chart of Week 2');
+      const reason = element().querySelector('input[name=reason]') as HTMLInputElement;
+      reason.value = 'Lund starts the second game';
+      reason.dispatchEvent(new Event('input'));
+      (Array.from(element().querySelectorAll('button')).find((b) => b.textContent?.includes('Save the depth chart')) as HTMLButtonElement).click();
+      const put = http.expectOne((r) => r.method === 'PUT' && r.url === '/api/teams/1/depth-chart');
+      expect(put.request.body).toEqual({ seasonId: 5, week: 2, positions: { LG: [22, 12] }, reason: 'Lund starts the second game' });
+      put.flush({ ...CHART, week: 2, inForceFromWeek: 2, savedWeeks: [0, 2, 4], positions: { ...CHART.positions, LG: [CHART.positions['LG'][1], CHART.positions['LG'][0]] } });
+      await answer('/api/teams/1/depth-chart/history', HISTORY);
+      await fixture.whenStable();
+      expect(status()).toBe("Week 2's own chart. In force for weeks 2–3.");
+      expect(Array.from(picker().options, (o) => o.textContent?.trim())[2]).toBe('Week 2 · own chart');
+      expect(picker().disabled).toBe(false);
+    });
+
+    it('says when no chart is in force for a week', async () => {
+      await render('coach');
+      const empty = Object.fromEntries(Object.keys(CHART.positions).map((p) => [p, []]));
+      await pickWeek(1, { ...CHART, week: 1, inForceFromWeek: null, savedWeeks: [3], positions: empty });
+      expect(status()).toBe('No chart for week 1. Nothing is saved for it or an earlier week.');
+      expect(names('LG')).toEqual([]);
+    });
   });
 });

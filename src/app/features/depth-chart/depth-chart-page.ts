@@ -10,6 +10,7 @@ import { MatMenuModule } from '@angular/material/menu';
 import { RouterLink } from '@angular/router';
 import type { DepthChart } from '@shared/api/grading';
 import type { Player, PlayerListResponse } from '@shared/api/roster';
+import { chartWeekLabel, weeksGoverned } from '@shared/depth-chart';
 import { POSITIONS, type Position } from '@shared/roster';
 import { ROSTER_EDITOR_ROLES } from '@shared/roles';
 import { AuthStore } from '../../core/auth/auth-store';
@@ -27,6 +28,9 @@ import { DepthChartApi } from './depth-chart-api';
 import { addCandidate, changedPositions, draftFrom, MAX_PER_POSITION, removeCandidate, reorder, transfer, type ChartDraft, type EditResult } from './depth-chart-edits';
 import type { ChartChange } from './describe-change';
 
+/** The highest week a chart can be saved for (as for a film session's week). */
+const MAX_CHART_WEEK = 25;
+
 interface Person {
   name: string;
   jersey: number | null;
@@ -34,7 +38,10 @@ interface Person {
   status?: Player['status'];
 }
 
-/** The Depth Chart: ordered candidates at each spot; coordinators and admins drag to reorder, move or copy, and save with a reason. */
+/**
+ * The Depth Chart: ordered candidates at each spot, week by week (a week's chart carries forward until a
+ * later week's); coordinators and admins drag to reorder, move or copy, and save with a reason.
+ */
 @Component({
   selector: 'tw-depth-chart-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -79,7 +86,43 @@ export class DepthChartPage {
     if (teamId === null || !seasonReady(this.teams)) return undefined;
     return { url: `/api/teams/${teamId}/${path}`, params: seasonParams(this.seasonId()), context: inlineErrors() };
   };
-  protected readonly chart = httpResource<DepthChart>(() => this.request('depth-chart'));
+  /** The week asked for; null: the current week (the latest saved). A new season starts at its current week. */
+  protected readonly week = linkedSignal<number | null, number | null>({ source: this.seasonId, computation: () => null });
+  protected readonly chart = httpResource<DepthChart>(() => {
+    const base = this.request('depth-chart');
+    const week = this.week();
+    return base && week !== null ? { ...base, params: { ...base.params, week } } : base;
+  });
+  /** What the week picker needs, kept while another week loads so the picker stays put. */
+  private readonly weeks = linkedSignal<DepthChart | null, Pick<DepthChart, 'week' | 'savedWeeks' | 'lastGameWeek'> | null>({
+    source: () => (this.chart.hasValue() ? this.chart.value() : null),
+    computation: (chart, previous) => (chart ? { week: chart.week, savedWeeks: chart.savedWeeks, lastGameWeek: chart.lastGameWeek } : (previous?.value ?? null)),
+  });
+  protected readonly shownWeek = computed(() => this.week() ?? this.weeks()?.week ?? null);
+  /** Week 0 (the base chart) up to the week after the last game (or the last saved week, if later); saved weeks say so in words. */
+  protected readonly weekOptions = computed(() => {
+    const weeks = this.weeks();
+    if (!weeks) return [];
+    const last = Math.min(MAX_CHART_WEEK, Math.max((weeks.lastGameWeek ?? 0) + 1, weeks.week, ...weeks.savedWeeks));
+    return Array.from({ length: last + 1 }, (_, week) => ({ week, label: `${chartWeekLabel(week)}${weeks.savedWeeks.includes(week) ? ' · own chart' : ''}` }));
+  });
+  /** Whose chart the week shows: its own, one carried from an earlier week, or none. */
+  protected readonly weekStatus = computed(() => {
+    if (!this.chart.hasValue()) return null;
+    const { week, inForceFromWeek, savedWeeks } = this.chart.value();
+    const span = weeksGoverned(savedWeeks, week);
+    const inForce = span.through === null ? `from week ${week} on` : span.through === week ? `for week ${week} only` : `for weeks ${week}–${span.through}`;
+    if (inForceFromWeek === null) return { lead: `No chart for week ${week}`, detail: 'Nothing is saved for it or an earlier week.', onSave: `Saving gives week ${week} its own chart, in force ${inForce}.` };
+    if (inForceFromWeek !== week) return { lead: `Carried from week ${inForceFromWeek}`, detail: `Week ${week} has no chart of its own.`, onSave: `Saving gives week ${week} its own chart, in force ${inForce}.` };
+    return { lead: `${chartWeekLabel(week)}'s own chart`, detail: `In force ${inForce}.`, onSave: null };
+  });
+  protected readonly saveWeekLabel = computed(() => {
+    const week = this.shownWeek();
+    return week === null ? null : chartWeekLabel(week);
+  });
+  protected pickWeek(event: Event): void {
+    this.week.set(Number((event.target as HTMLSelectElement).value));
+  }
   protected readonly roster = httpResource<PlayerListResponse>(() => this.request('players'));
   protected readonly history = httpResource<{ changes: ChartChange[] }>(() => this.request('depth-chart/history'));
 
@@ -186,9 +229,10 @@ export class DepthChartPage {
       return;
     }
     const seasonId = this.chart.hasValue() ? this.chart.value().seasonId : this.seasonId();
+    const week = this.shownWeek();
     this.saving.set(true);
     this.problem.set(null);
-    this.api.save(teamId, { ...(seasonId !== null ? { seasonId } : {}), positions: this.changed(), reason }).subscribe({
+    this.api.save(teamId, { ...(seasonId !== null ? { seasonId } : {}), ...(week !== null ? { week } : {}), positions: this.changed(), reason }).subscribe({
       next: (chart) => {
         this.saving.set(false);
         this.reason.set('');

@@ -9,6 +9,8 @@ export interface ChartEntry {
 /** GET /api/teams/{teamId}/depth-chart/history (server/grading/depth-chart.service.ts). */
 export interface ChartChange {
   id: number;
+  /** The week the change was saved for (0: the base chart). */
+  week: number;
   by: string;
   at: string;
   reason: string | null;

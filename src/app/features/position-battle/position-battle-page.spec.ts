@@ -25,7 +25,7 @@ const COMPARISON: Comparison = {
   ],
   pairs: [{ a: 11, b: 22, difference: pair.difference, z: pair.z, pValue: pair.pValue, probabilityABetter: pair.probabilityAHigher, reading: pair.reading, warning: pair.warning }],
 };
-const CHART: DepthChart = { seasonId: 5, updatedAt: null, positions: { LT: [], LG: [{ playerId: 12, name: 'Rowan Pike', jersey: 66 }, { playerId: 22, name: 'Abe Lund', jersey: 63 }], C: [], RG: [], RT: [], TE: [] } };
+const CHART: DepthChart = { seasonId: 5, updatedAt: null, week: 0, inForceFromWeek: 0, savedWeeks: [0], lastGameWeek: null, positions: { LT: [], LG: [{ playerId: 12, name: 'Rowan Pike', jersey: 66 }, { playerId: 22, name: 'Abe Lund', jersey: 63 }], C: [], RG: [], RT: [], TE: [] } };
 
 describe('PositionBattlePage', () => {
   let http: HttpTestingController;
