@@ -95,8 +95,8 @@ export async function withBenchStack<T>(fn: (stack: BenchStack) => Promise<T>, o
     const serverLog = join(runDir, 'server.log');
     const serverSpec = tsxChild('server', entries.server(), REPO_ROOT, env, { file: serverLog });
     // BENCH_CPU_PROFILE_DIR=/some/dir: the server writes a V8 CPU profile there when it stops (open it in Chrome DevTools).
-    if (process.env.BENCH_CPU_PROFILE_DIR) serverSpec.args = ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_CPU_PROFILE_DIR}`, ...serverSpec.args];
-    const server = new ManagedChild(serverSpec);
+    const profileDir = process.env.BENCH_CPU_PROFILE_DIR;
+    const server = new ManagedChild(profileDir ? { ...serverSpec, args: ['--cpu-prof', `--cpu-prof-dir=${profileDir}`, ...serverSpec.args] } : serverSpec);
     children.push(server);
     appendFileSync(join(runDir, 'owner'), `server ${server.pid}\n`);
     await Promise.race([
