@@ -24,7 +24,6 @@ export { readTrend, slopeInterval, weeklyTrend, TREND_RULE, type TrendFit, type 
 export { rollingAverage, rollingPlusRate } from './rolling';
 export { tallyBySession, tallyByWeek, weekStart, weeksBetween, type DatedTally, type WeekTally } from './series';
 export {
-  allPlusShare,
   linemanResults,
   resultScores,
   unitGrade,

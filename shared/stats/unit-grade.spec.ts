@@ -1,26 +1,8 @@
-import { allPlusShare, resultScores, unitGrade, unitSnapOutcome, weakestLink, weakestLinkCounts, type LinemanResult } from './unit-grade';
+import { linemanResults, resultScores, unitGrade, unitSnapOutcome, weakestLink, weakestLinkCounts, type LinemanResult } from './unit-grade';
 import { wilsonInterval } from './wilson';
 
 const line = (...results: ('plus' | 'minus' | null)[]): LinemanResult[] =>
   results.map((result, i) => ({ playerId: ['LT', 'LG', 'C', 'RG', 'RT', 'TE'][i], result }));
-
-describe('allPlusShare', () => {
-  test('counts snaps where every lineman on the field graded plus, six-man sets included', () => {
-    const snaps = [
-      line('plus', 'plus', 'plus', 'plus', 'plus'),
-      line('plus', 'minus', 'plus', 'plus', 'plus'),
-      line('plus', 'plus', 'plus', 'plus', 'plus', 'plus'),
-      line('plus', 'plus', null, 'plus', 'plus'), // C not graded yet: left out
-      line('minus', 'plus', null, 'plus', 'plus'), // left out too, though it cannot be all-plus
-      [],
-    ];
-    expect(allPlusShare(snaps)).toEqual({ allPlus: 2, counted: 3, incomplete: 3, rate: 2 / 3, interval: wilsonInterval(2, 3) });
-  });
-
-  test('nothing fully graded → rate null', () => {
-    expect(allPlusShare([line(null, 'plus')])).toMatchObject({ counted: 0, rate: null, interval: null });
-  });
-});
 
 describe('unitSnapOutcome and unitGrade (from counts, as the reports have them)', () => {
   test('a snap counts once everyone on the field is graded; extra graded linemen (a sub) do not make it incomplete', () => {
@@ -45,6 +27,16 @@ describe('unitSnapOutcome and unitGrade (from counts, as the reports have them)'
     ];
     expect(unitGrade(game)).toEqual({ allPlus: 2, counted: 4, incomplete: 2, rate: 0.5, interval: wilsonInterval(2, 4) });
   });
+});
+
+test('linemanResults: the plus ids then the minus ids, as results', () => {
+  expect(linemanResults([7, 9], [4])).toEqual([
+    { playerId: '7', result: 'plus' },
+    { playerId: '9', result: 'plus' },
+    { playerId: '4', result: 'minus' },
+  ]);
+  // The weakest link of that snap is the one minus.
+  expect(weakestLink(resultScores(linemanResults([7, 9], [4])))).toEqual({ playerIds: ['4'], score: 0 });
 });
 
 describe('weakestLink', () => {

@@ -58,17 +58,6 @@ export function unitGrade(snaps: readonly UnitSnapCounts[]): AllPlusShare {
   };
 }
 
-/** The unit grade from each lineman's result per snap (everyone listed is on the field). */
-export function allPlusShare(snaps: readonly (readonly LinemanResult[])[]): AllPlusShare {
-  return unitGrade(
-    snaps.map((snap) => ({
-      onField: snap.length,
-      graded: snap.filter((g) => g.result !== null).length,
-      plus: snap.filter((g) => g.result === 'plus').length,
-    })),
-  );
-}
-
 /** One lineman's score on one snap, higher is better (1/0 for plus/minus, or a points total). */
 export interface LinemanScore {
   playerId: string;
